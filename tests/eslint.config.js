@@ -19,7 +19,7 @@ export default tseslint.config(
     ignores: ['core/io/**', 'core/cli/**'],
     rules: {
       'no-restricted-imports': ['error', {
-        paths: nodeOnly.filter((m) => !m.includes('*')).concat(['electron', 'pixi.js', 'exceljs', 'pdfkit']).map((name) => ({ name, message: 'core/ is pure: file I/O and platform code belong in core/io, core/cli, renderer/ or electron/.' })),
+        paths: nodeOnly.filter((m) => !m.includes('*')).concat(['electron', 'pixi.js']).map((name) => ({ name, message: 'core/ is pure: file I/O and platform code belong in core/io, core/cli, renderer/ or electron/.' })),
         patterns: [
           { group: ['**/renderer/**', '**/electron/**', '../../renderer/*', '../../electron/*'], message: 'core/ must not import upward (renderer/, electron/).' },
           { group: ['node:*'], message: 'core/ is pure: Node-only modules belong in core/io or core/cli.' },
