@@ -85,6 +85,8 @@ export interface Settings {
   currency: string;
   /** Unit prices: placeholders until the estimator replaces them. */
   prices: PriceItem[];
+  /** DXF layer names for the written layers (DEFAULT_DXF_LAYERS when absent). */
+  dxfLayers?: DxfLayerNames;
 }
 
 export const DEFAULT_ROUTE: RouteSettings = {
@@ -143,3 +145,22 @@ export function defaultSettings(): Settings {
     prices: [],
   };
 }
+
+/** DXF layer names Furrow writes (names configurable; defaults in DESIGN.md "Contracts"). */
+export interface DxfLayerNames {
+  centerline: string;
+  outline: string;
+  pullBox: string;
+  service: string;
+  label: string;
+  notes: string;
+}
+
+export const DEFAULT_DXF_LAYERS: DxfLayerNames = {
+  centerline: 'TRENCH-CENTERLINE',
+  outline: 'TRENCH-OUTLINE',
+  pullBox: 'TRENCH-PULLBOX',
+  service: 'TRENCH-SERVICE',
+  label: 'TRENCH-LABEL',
+  notes: 'TRENCH-NOTES',
+};
