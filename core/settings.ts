@@ -68,6 +68,14 @@ export interface TrenchSettings {
   pavementOvercutIn: number;
   /** Conduit stub-up allowance at each end of a conduit run, metres. */
   stubUpM: number;
+  /** Count the 90° riser sweep at each end of a pulled run toward its bend limit (default true; NEC counts every bend). */
+  countRiserBends?: boolean;
+  /** Clear separation between the duct blocks of different utilities, inches (default 12; CGA 2.12 / NESC, practice). */
+  utilitySeparationIn?: number;
+  /** Conduits side by side in one row of a utility's duct block before a new row starts (default 4; practice). */
+  ductsPerRow?: number;
+  /** Backfill brought in instead of reusing the spoil (default false: spoil reused, only the surplus hauled). */
+  importBackfill?: boolean;
 }
 
 export interface PriceItem {
@@ -136,13 +144,39 @@ export const DEFAULT_TRENCH: TrenchSettings = {
   stubUpM: 1.5,
 };
 
+/**
+ * Unit prices. EVERY VALUE IS A PLACEHOLDER to be replaced by the estimator's own prices; they only
+ * show the shape of the table. Keys match take-off line items; a line falls back from the most
+ * specific key (e.g. 'conduit.power.2.375in') to shorter ones ('conduit.power', 'conduit').
+ * Units: m, m2, m3, ft, yd2, yd3 or ea; prices are converted with exact factors to the schedule unit.
+ */
+export const DEFAULT_PRICES: PriceItem[] = [
+  { key: 'trench.soft', description: 'PLACEHOLDER — trench in soft ground (open, lay, close)', unit: 'm', price: 40 },
+  { key: 'trench.pavement', description: 'PLACEHOLDER — trench under pavement (open, lay, close)', unit: 'm', price: 60 },
+  { key: 'excavation', description: 'PLACEHOLDER — excavation, bank measure', unit: 'm3', price: 30 },
+  { key: 'protective', description: 'PLACEHOLDER — protective system (shoring / trench box), per length of trench', unit: 'm', price: 25 },
+  { key: 'bedding', description: 'PLACEHOLDER — sand bedding, placed', unit: 'm3', price: 45 },
+  { key: 'backfill', description: 'PLACEHOLDER — backfill, placed and compacted', unit: 'm3', price: 20 },
+  { key: 'haul', description: 'PLACEHOLDER — load and haul surplus spoil, loose measure', unit: 'm3', price: 18 },
+  { key: 'sawcut', description: 'PLACEHOLDER — saw-cut pavement', unit: 'm', price: 8 },
+  { key: 'pavement.restore', description: 'PLACEHOLDER — pavement restoration (T-patch)', unit: 'm2', price: 90 },
+  { key: 'tape', description: 'PLACEHOLDER — warning tape', unit: 'm', price: 0.5 },
+  { key: 'tracer', description: 'PLACEHOLDER — tracer wire', unit: 'm', price: 1.2 },
+  { key: 'conduit', description: 'PLACEHOLDER — conduit or pipe, supplied and laid', unit: 'm', price: 12 },
+  { key: 'elbow', description: 'PLACEHOLDER — elbow / bend fitting', unit: 'ea', price: 15 },
+  { key: 'tee', description: 'PLACEHOLDER — tee on a main', unit: 'ea', price: 35 },
+  { key: 'pullbox', description: 'PLACEHOLDER — pull box / handhole, set', unit: 'ea', price: 850 },
+  { key: 'crossing', description: 'PLACEHOLDER — crossing of an existing feature (locate, protect)', unit: 'ea', price: 250 },
+  { key: 'crossing.pavement-edge', description: 'PLACEHOLDER — crossing a pavement edge / curb line', unit: 'ea', price: 120 },
+];
+
 export function defaultSettings(): Settings {
   return {
     route: { ...DEFAULT_ROUTE },
     utilities: DEFAULT_UTILITIES.map((u) => ({ ...u, coverIn: { ...u.coverIn } })),
     trench: { ...DEFAULT_TRENCH },
     currency: 'USD',
-    prices: [],
+    prices: DEFAULT_PRICES.map((p) => ({ ...p })),
   };
 }
 
