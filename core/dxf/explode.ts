@@ -1,0 +1,231 @@
+// dxf-parser entities → Drawing entities: curves tessellated, block references expanded
+// (nested, with scale, mirror, rotation, base point and arrays), paper space dropped.
+
+import type { DrawingEntity, SourceKind } from './drawing';
+import { type Affine, IDENTITY, applyInPlace, compose, insertTransform, isIdentity, maxStretch } from './affine';
+import { circleRing, ellipsePoints, pushArc, pushBulge, splinePoints } from './tessellate';
+import type { RawCircle, RawPolyline } from './parserHandlers';
+import { plainText } from './plainText';
+
+export interface ExplodeLimits { maxEntities: number; maxBlockDepth: number; chordTolerance: number }
+
+export type ExplodeFailure = { kind: 'limit'; message: string };
+
+interface Block { name: string; position?: { x: number; y: number }; entities?: any[] }
+
+const TWO_PI = Math.PI * 2;
+
+class LimitError extends Error {}
+
+export class Exploder {
+  readonly out: DrawingEntity[] = [];
+  readonly skipped = new Map<string, number>();
+  readonly notes: string[] = [];
+  private readonly stack: string[] = [];
+
+  constructor(private readonly blocks: Record<string, Block>, private readonly limits: ExplodeLimits) {}
+
+  /** Expand the model-space entities; a limit breach returns a failure instead of throwing. */
+  run(entities: any[]): ExplodeFailure | null {
+    try {
+      for (const e of entities) {
+        if (e.inPaperSpace) continue;
+        this.entity(e, IDENTITY, null, e.handle === undefined ? undefined : String(e.handle));
+      }
+    } catch (x) {
+      if (x instanceof LimitError) return { kind: 'limit', message: x.message };
+      throw x;
+    }
+    return null;
+  }
+
+  private skip(type: string): void {
+    this.skipped.set(type, (this.skipped.get(type) ?? 0) + 1);
+  }
+
+  private emit(e: DrawingEntity): void {
+    if (this.out.length >= this.limits.maxEntities) {
+      throw new LimitError(
+        `the drawing expands to more than ${this.limits.maxEntities} entities (block references included); ` +
+          'purge unused detail or raise the entity limit',
+      );
+    }
+    this.out.push(e);
+  }
+
+  private layerOf(e: any, parentLayer: string | null): string {
+    const own = typeof e.layer === 'string' && e.layer !== '' ? e.layer : '0';
+    // entities on layer 0 inside a block take the layer of the block reference (DXF convention)
+    return own === '0' && parentLayer !== null ? parentLayer : own;
+  }
+
+  private poly(layer: string, source: SourceKind, pts: number[], closed: boolean, m: Affine, handle?: string): void {
+    dedupe(pts, closed);
+    if (pts.length < 4) {
+      this.skip(`${source} (degenerate)`);
+      return;
+    }
+    if (!isIdentity(m)) applyInPlace(m, pts);
+    const ent: DrawingEntity = { kind: 'polyline', layer, source, points: Float64Array.from(pts), closed };
+    if (handle !== undefined) ent.handle = handle;
+    this.emit(ent);
+  }
+
+  private entity(e: any, m: Affine, parentLayer: string | null, handle: string | undefined): void {
+    const layer = this.layerOf(e, parentLayer);
+    const tol = this.limits.chordTolerance / Math.max(1e-12, maxStretch(m));
+    switch (e.type) {
+      case 'LINE': {
+        const v = e.vertices;
+        if (!v || v.length < 2) return this.skip('LINE (incomplete)');
+        this.poly(layer, 'LINE', [v[0].x, v[0].y, v[1].x, v[1].y], false, m, handle);
+        return;
+      }
+      case 'LWPOLYLINE':
+      case 'POLYLINE':
+        return this.polyline(e as RawPolyline, layer, m, tol, handle);
+      case 'CIRCLE': {
+        const c = e as RawCircle;
+        if (!(c.radius > 0)) return this.skip('CIRCLE (zero radius)');
+        const mm = c.extrusionZ < 0 ? compose(m, [-1, 0, 0, 1, 0, 0]) : m;
+        this.poly(layer, 'CIRCLE', circleRing(c.center.x, c.center.y, c.radius, tol), true, mm, handle);
+        return;
+      }
+      case 'ARC': {
+        if (!e.center || !(e.radius > 0)) return this.skip('ARC (incomplete)');
+        let sweep = (e.endAngle ?? TWO_PI) - (e.startAngle ?? 0);
+        while (sweep <= 0) sweep += TWO_PI;
+        const pts: number[] = [];
+        pushArc(pts, e.center.x, e.center.y, e.radius, e.startAngle ?? 0, sweep, tol, true);
+        const mm = (e.extrusionDirectionZ ?? 1) < 0 ? compose(m, [-1, 0, 0, 1, 0, 0]) : m;
+        this.poly(layer, 'ARC', pts, false, mm, handle);
+        return;
+      }
+      case 'ELLIPSE': {
+        if (!e.center || !e.majorAxisEndPoint) return this.skip('ELLIPSE (incomplete)');
+        const { points, closed } = ellipsePoints(
+          e.center.x, e.center.y, e.majorAxisEndPoint.x, e.majorAxisEndPoint.y, e.axisRatio ?? 1,
+          e.startAngle ?? 0, e.endAngle ?? TWO_PI, tol,
+        );
+        this.poly(layer, 'ELLIPSE', points, closed, m, handle);
+        return;
+      }
+      case 'SPLINE':
+        return this.spline(e, layer, m, tol, handle);
+      case 'INSERT':
+        return this.insert(e, m, layer, handle);
+      case 'TEXT':
+      case 'MTEXT': {
+        const p = e.type === 'TEXT' ? e.startPoint : e.position;
+        if (!p || typeof e.text !== 'string') return this.skip(`${e.type} (incomplete)`);
+        const pt = [p.x, p.y];
+        applyInPlace(m, pt);
+        const h = (e.type === 'TEXT' ? e.textHeight : e.height) ?? 1;
+        const rot = (Math.atan2(m[1], m[0]) * 180) / Math.PI + (e.rotation ?? 0);
+        const ent: DrawingEntity = {
+          kind: 'text', layer, x: pt[0], y: pt[1], height: h * Math.sqrt(Math.abs(m[0] * m[3] - m[1] * m[2])),
+          rotationDeg: rot, text: plainText(e.text, e.type === 'MTEXT'),
+        };
+        if (handle !== undefined) ent.handle = handle;
+        this.emit(ent);
+        return;
+      }
+      default:
+        this.skip(String(e.type));
+    }
+  }
+
+  private polyline(e: RawPolyline, layer: string, m: Affine, tol: number, handle?: string): void {
+    if (e.type === 'POLYLINE' && (e.flags & (16 | 64)) !== 0) return this.skip('POLYLINE (mesh)');
+    if (e.seqendMissing) this.notes.push(`a POLYLINE${e.handle ? ` (handle ${e.handle})` : ''} has no SEQEND; read up to the next entity`);
+    const is3d = (e.flags & 8) !== 0;
+    // spline-fit frame control points are not on the curve; the fitted vertices are
+    const vs = e.vertices.filter((v) => (v.flags & 16) === 0);
+    if (vs.length < 2) return this.skip(`${e.type} (fewer than 2 vertices)`);
+    const closed = (e.flags & 1) !== 0;
+    const pts: number[] = [vs[0].x, vs[0].y];
+    const n = vs.length;
+    const segs = closed ? n : n - 1;
+    for (let i = 0; i < segs; i++) {
+      const a = vs[i];
+      const b = vs[(i + 1) % n];
+      pushBulge(pts, a.x, a.y, b.x, b.y, is3d ? 0 : a.bulge, tol);
+    }
+    if (closed) pts.length -= 2; // the last segment ended on the first point
+    const mm = e.extrusionZ < 0 ? compose(m, [-1, 0, 0, 1, 0, 0]) : m;
+    this.poly(layer, e.type, pts, closed, mm, handle);
+  }
+
+  private spline(e: any, layer: string, m: Affine, tol: number, handle?: string): void {
+    const cps: { x: number; y: number }[] | undefined = e.controlPoints;
+    const knots: number[] | undefined = e.knotValues;
+    const p: number = e.degreeOfSplineCurve ?? 3;
+    let pts: number[];
+    if (cps && knots && cps.length > p && knots.length === cps.length + p + 1) {
+      const ctrl = new Float64Array(cps.length * 2);
+      cps.forEach((c, i) => { ctrl[2 * i] = c.x; ctrl[2 * i + 1] = c.y; });
+      pts = splinePoints(p, knots, ctrl, tol);
+      if (e.rational) this.notes.push('a rational SPLINE was approximated without its weights');
+    } else if (e.fitPoints && e.fitPoints.length >= 2) {
+      pts = e.fitPoints.flatMap((f: { x: number; y: number }) => [f.x, f.y]);
+      this.notes.push('a SPLINE without a control polygon was drawn through its fit points');
+    } else {
+      return this.skip('SPLINE (incomplete)');
+    }
+    const closed = !!e.closed || (pts.length >= 6 && pts[0] === pts[pts.length - 2] && pts[1] === pts[pts.length - 1]);
+    if (closed && pts[0] === pts[pts.length - 2] && pts[1] === pts[pts.length - 1]) pts.length -= 2;
+    this.poly(layer, 'SPLINE', pts, closed, m, handle);
+  }
+
+  private insert(e: any, m: Affine, layer: string, handle?: string): void {
+    const name: string = e.name;
+    const block = this.blocks[name];
+    if (!block) {
+      this.notes.push(`INSERT of unknown block '${name}' skipped`);
+      return;
+    }
+    if (this.stack.includes(name)) {
+      throw new LimitError(`block '${name}' inserts itself (${[...this.stack, name].join(' → ')}); the drawing's blocks are recursive`);
+    }
+    if (this.stack.length >= this.limits.maxBlockDepth) {
+      throw new LimitError(`blocks nest deeper than ${this.limits.maxBlockDepth} levels (${[...this.stack, name].join(' → ')})`);
+    }
+    const base = block.position ?? { x: 0, y: 0 };
+    const pos = e.position ?? { x: 0, y: 0 };
+    const cols = Math.max(1, e.columnCount ?? 1);
+    const rows = Math.max(1, e.rowCount ?? 1);
+    if (cols * rows > this.limits.maxEntities) {
+      throw new LimitError(`an INSERT array of ${cols} × ${rows} exceeds the entity limit of ${this.limits.maxEntities}`);
+    }
+    const mirror = (e.extrusionDirection?.z ?? 1) < 0;
+    this.stack.push(name);
+    for (let r = 0; r < rows; r++) {
+      for (let c = 0; c < cols; c++) {
+        const local = insertTransform(
+          pos.x, pos.y, e.xScale ?? 1, e.yScale ?? 1, e.rotation ?? 0, base.x, base.y,
+          c * (e.columnSpacing ?? 0), r * (e.rowSpacing ?? 0), mirror,
+        );
+        const mm = compose(m, local);
+        for (const child of block.entities ?? []) {
+          if (child.type === 'ATTDEF') continue;
+          this.entity(child, mm, layer, handle);
+        }
+      }
+    }
+    this.stack.pop();
+  }
+}
+
+/** Remove repeated consecutive points (and a closing repeat of the first point when closed). */
+function dedupe(pts: number[], closed: boolean): void {
+  let w = 2;
+  for (let r = 2; r < pts.length; r += 2) {
+    if (pts[r] !== pts[w - 2] || pts[r + 1] !== pts[w - 1]) {
+      pts[w] = pts[r];
+      pts[w + 1] = pts[r + 1];
+      w += 2;
+    }
+  }
+  pts.length = w;
+  if (closed && w >= 4 && pts[0] === pts[w - 2] && pts[1] === pts[w - 1]) pts.length = w - 2;
+}
