@@ -10,20 +10,33 @@ export function dxfReal(x: number): string {
   return s === '-0.0' ? '0.0' : s;
 }
 
+/** How text values are encoded: UTF-8 (AC1021+), Windows-1252 (the usual $DWGCODEPAGE ANSI_1252), or ASCII. */
+export type TextEncoding = 'utf8' | 'cp1252' | 'ascii';
+
+// Windows-1252 bytes 0x80–0x9F that are not Latin-1 (WHATWG encoding index, from memory).
+const CP1252_HIGH: Record<number, number> = {
+  0x20ac: 0x80, 0x201a: 0x82, 0x0192: 0x83, 0x201e: 0x84, 0x2026: 0x85, 0x2020: 0x86, 0x2021: 0x87, 0x02c6: 0x88,
+  0x2030: 0x89, 0x0160: 0x8a, 0x2039: 0x8b, 0x0152: 0x8c, 0x017d: 0x8e, 0x2018: 0x91, 0x2019: 0x92, 0x201c: 0x93,
+  0x201d: 0x94, 0x2022: 0x95, 0x2013: 0x96, 0x2014: 0x97, 0x02dc: 0x98, 0x2122: 0x99, 0x0161: 0x9a, 0x203a: 0x9b,
+  0x0153: 0x9c, 0x017e: 0x9e, 0x0178: 0x9f,
+};
+
 /**
- * Text value for a DXF group: one line, control characters removed. Non-ASCII characters are
- * written as `\U+XXXX` escapes (understood by DXF readers for every version) unless `utf8` is
- * set, in which case they are returned UTF-8 encoded as one char per byte (files from AC1021 on
- * are UTF-8; the caller splices bytes).
+ * Text value for a DXF group, as a byte string (one char per byte): one line, control characters
+ * removed, non-ASCII encoded for the file (`\U+XXXX` escapes where the encoding has no byte for it).
  */
-export function dxfText(s: string, utf8: boolean): string {
+export function dxfText(s: string, enc: TextEncoding): string {
   let out = '';
   for (const ch of s.replace(/[\r\n\t]+/g, ' ')) {
     const cp = ch.codePointAt(0)!;
     if (cp < 0x20 || cp === 0x7f) continue;
     if (cp < 0x80) { out += ch; continue; }
-    if (utf8) {
+    if (enc === 'utf8') {
       for (const b of new TextEncoder().encode(ch)) out += String.fromCharCode(b);
+    } else if (enc === 'cp1252' && cp >= 0xa0 && cp <= 0xff) {
+      out += String.fromCharCode(cp);
+    } else if (enc === 'cp1252' && CP1252_HIGH[cp] !== undefined) {
+      out += String.fromCharCode(CP1252_HIGH[cp]);
     } else if (cp <= 0xffff) {
       out += '\\U+' + cp.toString(16).toUpperCase().padStart(4, '0');
     } else {

@@ -1,0 +1,2 @@
+// clipper-lib ships no types; the writer wraps the few calls it uses in trenchOutline.ts.
+declare module 'clipper-lib';
