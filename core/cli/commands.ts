@@ -1,2 +1,3 @@
 // Registers every command's handler (each lives in its own module).
+import './inspect';
 export {};
