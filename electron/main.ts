@@ -1,0 +1,179 @@
+// Electron main process: one secure window serving the built renderer from app://furrow, native menus,
+// file dialogs and the bridge handlers. Each handler validates its arguments (electron/contract.ts)
+// and delegates to the plain modules in electron/handlers/.
+
+import { app, BrowserWindow, dialog, ipcMain, Menu, net, protocol, session, type IpcMainInvokeEvent, type MenuItemConstructorOptions } from 'electron';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { err, ok } from '../core/result';
+import {
+  CHANNELS, FILE_KINDS, validateDocumentState, validateOpenKind, validatePath, validateWriteRequest,
+  type BridgeResult, type FileKind, type MenuCommand, type OpenedFile, type SavedFile,
+} from './contract';
+import { dialogFilters, readTextFile, writeFileAtomic } from './handlers/fileAccess';
+import { buildMenuSpec, type MenuItemSpec } from './handlers/menu';
+import { createRecentFiles } from './handlers/recentFiles';
+import { APP_ORIGIN, APP_SCHEME, CONTENT_SECURITY_POLICY, isAllowedNavigation, resolveAppUrl, secureWebPreferences } from './handlers/security';
+import { pickInitialFile } from './handlers/startup';
+
+protocol.registerSchemesAsPrivileged([
+  { scheme: APP_SCHEME, privileges: { standard: true, secure: true, supportFetchAPI: true, stream: true } },
+]);
+
+const rendererDir = path.join(app.getAppPath(), 'renderer', 'dist');
+const recent = createRecentFiles(path.join(app.getPath('userData'), 'recent-files.json'));
+const initialPath = pickInitialFile(process.argv.slice(app.isPackaged ? 1 : 2), process.env.FURROW_OPEN);
+let initialServed = false;
+let mainWindow: BrowserWindow | null = null;
+let lastFolder = app.getPath('documents');
+
+function kindOfPath(p: string): FileKind {
+  const ext = path.extname(p).slice(1).toLowerCase();
+  if ((FILE_KINDS.project as readonly string[]).includes(ext)) return 'project';
+  if (ext === 'csv') return 'points';
+  return 'drawing';
+}
+
+/** Only our own page may call the bridge. */
+function fromOurPage(e: IpcMainInvokeEvent | Electron.IpcMainEvent): boolean {
+  const url = e.senderFrame?.url ?? '';
+  return isAllowedNavigation(url);
+}
+
+const refused = (): BridgeResult<never> => err({ kind: 'invalid-argument', message: 'request from an unexpected page' });
+
+async function remember(file: string): Promise<void> {
+  lastFolder = path.dirname(file);
+  await recent.add(file);
+  await rebuildMenu();
+}
+
+function send(command: MenuCommand): void {
+  mainWindow?.webContents.send(CHANNELS.menuCommand, command);
+}
+
+function openRecentFromMenu(p: string): void {
+  // the renderer opens it through the bridge (openRecent) so its document flow stays in one place
+  mainWindow?.webContents.send(CHANNELS.recentChosen, p);
+}
+
+function toTemplate(items: MenuItemSpec[]): MenuItemConstructorOptions[] {
+  return items.map((i): MenuItemConstructorOptions => {
+    if (i.type === 'separator') return { type: 'separator' };
+    const out: MenuItemConstructorOptions = { label: i.label, accelerator: i.accelerator, enabled: i.enabled ?? true };
+    if (i.role) out.role = i.role;
+    if (i.command) { const c = i.command; out.click = () => send(c); }
+    if (i.recentPath) { const p = i.recentPath; out.click = () => openRecentFromMenu(p); }
+    if (i.submenu) out.submenu = toTemplate(i.submenu);
+    return out;
+  });
+}
+
+async function rebuildMenu(): Promise<void> {
+  Menu.setApplicationMenu(Menu.buildFromTemplate(toTemplate(buildMenuSpec(await recent.list(), process.platform))));
+}
+
+function registerHandlers(): void {
+  ipcMain.handle(CHANNELS.openFile, async (e, kindArg: unknown): Promise<BridgeResult<OpenedFile | null>> => {
+    if (!fromOurPage(e)) return refused();
+    const kind = validateOpenKind(kindArg);
+    if (!kind.ok) return kind;
+    const win = BrowserWindow.fromWebContents(e.sender);
+    const options = { defaultPath: lastFolder, filters: dialogFilters(kind.value), properties: ['openFile' as const] };
+    const pick = win ? await dialog.showOpenDialog(win, options) : await dialog.showOpenDialog(options);
+    if (pick.canceled || pick.filePaths.length === 0) return ok(null);
+    const read = await readTextFile(pick.filePaths[0], kind.value);
+    if (read.ok && kind.value !== 'points') await remember(read.value.path);
+    return read;
+  });
+  ipcMain.handle(CHANNELS.openRecent, async (e, pathArg: unknown): Promise<BridgeResult<OpenedFile>> => {
+    if (!fromOurPage(e)) return refused();
+    const p = validatePath(pathArg);
+    if (!p.ok) return p;
+    const known = await recent.list();
+    if (!known.includes(path.resolve(p.value))) return err({ kind: 'invalid-argument', message: 'not in the recent-files list' });
+    const read = await readTextFile(p.value, kindOfPath(p.value));
+    if (read.ok) await remember(read.value.path);
+    else if (read.error.kind === 'not-found') { await recent.remove(p.value); await rebuildMenu(); }
+    return read;
+  });
+  ipcMain.handle(CHANNELS.initialFile, async (e): Promise<BridgeResult<OpenedFile | null>> => {
+    if (!fromOurPage(e)) return refused();
+    if (initialServed || !initialPath) return ok(null);
+    initialServed = true;
+    return readTextFile(initialPath, kindOfPath(initialPath));
+  });
+  ipcMain.handle(CHANNELS.saveFile, async (e, reqArg: unknown): Promise<BridgeResult<SavedFile | null>> => {
+    if (!fromOurPage(e)) return refused();
+    const req = validateWriteRequest(reqArg);
+    if (!req.ok) return req;
+    const win = BrowserWindow.fromWebContents(e.sender);
+    const options = { defaultPath: path.join(lastFolder, req.value.suggestedName), filters: dialogFilters(req.value.kind) };
+    const pick = win ? await dialog.showSaveDialog(win, options) : await dialog.showSaveDialog(options);
+    if (pick.canceled || !pick.filePath) return ok(null);
+    const saved = await writeFileAtomic(pick.filePath, req.value.data, req.value.kind);
+    if (saved.ok) lastFolder = path.dirname(saved.value.path);
+    if (saved.ok && req.value.kind === 'project') await remember(saved.value.path);
+    return saved;
+  });
+  ipcMain.handle(CHANNELS.recentFiles, async (e): Promise<string[]> => (fromOurPage(e) ? recent.list() : []));
+  ipcMain.on(CHANNELS.setDocumentState, (e, title: unknown, edited: unknown) => {
+    if (!fromOurPage(e)) return;
+    const v = validateDocumentState(title, edited);
+    if (!v.ok || !mainWindow) return;
+    mainWindow.setTitle(v.value.title ? `${v.value.title} — Furrow` : 'Furrow');
+    mainWindow.setDocumentEdited(v.value.edited);
+  });
+}
+
+function createWindow(): void {
+  mainWindow = new BrowserWindow({
+    width: 1440,
+    height: 900,
+    minWidth: 960,
+    minHeight: 600,
+    backgroundColor: '#1a1d17',
+    title: 'Furrow',
+    show: false,
+    webPreferences: secureWebPreferences(path.join(__dirname, 'preload.cjs')),
+  });
+  const wc = mainWindow.webContents;
+  wc.on('will-navigate', (ev, url) => { if (!isAllowedNavigation(url)) ev.preventDefault(); });
+  wc.on('will-redirect', (ev, url) => { if (!isAllowedNavigation(url)) ev.preventDefault(); });
+  wc.setWindowOpenHandler(() => ({ action: 'deny' }));
+  wc.on('will-attach-webview', (ev) => ev.preventDefault());
+  mainWindow.once('ready-to-show', () => mainWindow?.show());
+  mainWindow.on('closed', () => { mainWindow = null; });
+  void mainWindow.loadURL(`${APP_ORIGIN}/index.html`);
+}
+
+app.whenReady().then(async () => {
+  protocol.handle(APP_SCHEME, async (request) => {
+    const file = resolveAppUrl(request.url, rendererDir);
+    if (!file) return new Response('not found', { status: 404 });
+    const res = await net.fetch(pathToFileURL(file).toString());
+    const headers = new Headers(res.headers);
+    headers.set('Content-Security-Policy', CONTENT_SECURITY_POLICY);
+    headers.set('X-Content-Type-Options', 'nosniff');
+    return new Response(res.body, { status: res.status, headers });
+  });
+  // no camera, microphone, notifications, geolocation …
+  session.defaultSession.setPermissionRequestHandler((_wc, _perm, done) => done(false));
+  session.defaultSession.setPermissionCheckHandler(() => false);
+  registerHandlers();
+  await rebuildMenu();
+  createWindow();
+  app.on('activate', () => { if (BrowserWindow.getAllWindows().length === 0) createWindow(); });
+}).catch((e: unknown) => {
+  dialog.showErrorBox('Furrow could not start', e instanceof Error ? e.message : String(e));
+  app.quit();
+});
+
+app.on('web-contents-created', (_e, contents) => {
+  contents.on('will-navigate', (ev, url) => { if (!isAllowedNavigation(url)) ev.preventDefault(); });
+  contents.setWindowOpenHandler(() => ({ action: 'deny' }));
+});
+
+app.on('window-all-closed', () => {
+  if (process.platform !== 'darwin') app.quit();
+});

@@ -1,0 +1,165 @@
+// The bundled preload and main process, loaded in Node with a recording stand-in for the `electron`
+// module (the Electron binary cannot run here). Checks what crosses the bridge and how the window is set up.
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import vm from 'node:vm';
+import { createRequire } from 'node:module';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { CHANNELS } from '../../electron/contract';
+
+const REPO = path.resolve(__dirname, '../..');
+const DIST = path.join(REPO, 'electron', 'dist');
+const nodeRequire = createRequire(import.meta.url);
+
+function loadCjs(file: string, electron: unknown): void {
+  const code = fs.readFileSync(file, 'utf8');
+  const module = { exports: {} as unknown };
+  const req = (name: string): unknown => (name === 'electron' ? electron : nodeRequire(name));
+  vm.runInThisContext(`(function (require, module, exports, __dirname, __filename) {${code}\n})`, { filename: file })(
+    req, module, module.exports, path.dirname(file), file,
+  );
+}
+
+beforeAll(() => {
+  execFileSync(process.execPath, [path.join(REPO, 'electron', 'bundle.mjs')], { stdio: 'pipe' });
+});
+
+describe('preload bundle', () => {
+  it('exposes only the named bridge functions on window.furrow, each invoking its own channel', async () => {
+    const exposed: Record<string, unknown> = {};
+    const calls: unknown[][] = [];
+    const listeners: Record<string, (...a: unknown[]) => void> = {};
+    const electron = {
+      contextBridge: { exposeInMainWorld: (name: string, api: unknown) => { exposed[name] = api; } },
+      ipcRenderer: {
+        invoke: (...a: unknown[]) => { calls.push(['invoke', ...a]); return Promise.resolve({ ok: true, value: null }); },
+        send: (...a: unknown[]) => { calls.push(['send', ...a]); },
+        on: (ch: string, fn: (...a: unknown[]) => void) => { listeners[ch] = fn; },
+        removeListener: (ch: string) => { delete listeners[ch]; },
+      },
+    };
+    loadCjs(path.join(DIST, 'preload.cjs'), electron);
+    expect(Object.keys(exposed)).toEqual(['furrow']);
+    const api = exposed.furrow as Record<string, unknown>;
+    expect(Object.keys(api).sort()).toEqual(
+      ['initialFile', 'onMenuCommand', 'onRecentChosen', 'openFile', 'openRecent', 'recentFiles', 'saveFile', 'setDocumentState', 'version'],
+    );
+    for (const [k, v] of Object.entries(api)) if (k !== 'version') expect(typeof v, k).toBe('function');
+    expect(Object.values(api)).not.toContain(electron.ipcRenderer);
+
+    await (api.openFile as (k: string) => Promise<unknown>)('drawing');
+    await (api.saveFile as (r: unknown) => Promise<unknown>)({ kind: 'csv', suggestedName: 'a.csv', data: 'x' });
+    (api.setDocumentState as (t: string, e: boolean) => void)('site.dxf', true);
+    expect(calls).toEqual([
+      ['invoke', CHANNELS.openFile, 'drawing'],
+      ['invoke', CHANNELS.saveFile, { kind: 'csv', suggestedName: 'a.csv', data: 'x' }],
+      ['send', CHANNELS.setDocumentState, 'site.dxf', true],
+    ]);
+
+    // menu commands are filtered: unknown strings never reach the renderer
+    const got: string[] = [];
+    const off = (api.onMenuCommand as (l: (c: string) => void) => () => void)((c) => got.push(c));
+    listeners[CHANNELS.menuCommand]({}, 'undo');
+    listeners[CHANNELS.menuCommand]({}, 'format-disk');
+    expect(got).toEqual(['undo']);
+    off();
+    expect(listeners[CHANNELS.menuCommand]).toBeUndefined();
+  });
+});
+
+describe('main bundle', () => {
+  it('opens one sandboxed window on app://furrow, registers every channel, and guards the handlers', async () => {
+    const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'furrow-main-'));
+    const drawing = path.join(tmp, 'site.dxf');
+    fs.writeFileSync(drawing, '0\nEOF\n');
+    const handles = new Map<string, (...a: unknown[]) => unknown>();
+    const ons = new Map<string, (...a: unknown[]) => unknown>();
+    const windows: { options: any; url?: string; wcHandlers: Map<string, (...a: unknown[]) => void>; openHandler?: () => unknown }[] = [];
+    let protocolHandler: ((req: { url: string }) => Promise<Response>) | null = null;
+    let ready!: () => void;
+    const whenReady = new Promise<void>((r) => { ready = r; });
+    class FakeWindow {
+      static all: FakeWindow[] = [];
+      rec: (typeof windows)[number];
+      webContents: any;
+      constructor(options: unknown) {
+        this.rec = { options, wcHandlers: new Map() };
+        windows.push(this.rec);
+        const rec = this.rec;
+        this.webContents = {
+          on: (ev: string, fn: (...a: unknown[]) => void) => rec.wcHandlers.set(ev, fn),
+          setWindowOpenHandler: (fn: () => unknown) => { rec.openHandler = fn; },
+          send: () => undefined,
+        };
+        FakeWindow.all.push(this);
+      }
+      static getAllWindows = () => FakeWindow.all;
+      static fromWebContents = () => null;
+      once() { /* ready-to-show */ }
+      on() { /* closed */ }
+      loadURL(url: string) { this.rec.url = url; return Promise.resolve(); }
+      setTitle() { /* title */ }
+      setDocumentEdited() { /* macOS dot */ }
+    }
+    const electron = {
+      app: {
+        getAppPath: () => REPO, getPath: () => tmp, isPackaged: false, whenReady: () => whenReady, on: () => undefined, quit: () => undefined,
+      },
+      protocol: { registerSchemesAsPrivileged: () => undefined, handle: (_s: string, fn: typeof protocolHandler) => { protocolHandler = fn; } },
+      ipcMain: { handle: (ch: string, fn: (...a: unknown[]) => unknown) => handles.set(ch, fn), on: (ch: string, fn: (...a: unknown[]) => unknown) => ons.set(ch, fn) },
+      BrowserWindow: FakeWindow,
+      Menu: { buildFromTemplate: (t: unknown) => t, setApplicationMenu: () => undefined },
+      session: { defaultSession: { setPermissionRequestHandler: () => undefined, setPermissionCheckHandler: () => undefined } },
+      dialog: {
+        showOpenDialog: async () => ({ canceled: false, filePaths: [drawing] }),
+        showSaveDialog: async () => ({ canceled: true }),
+        showErrorBox: () => undefined,
+      },
+      net: { fetch: (url: string) => Promise.resolve(new Response(fs.readFileSync(new URL(url)))) },
+    };
+    const savedArgv = process.argv;
+    process.argv = ['electron', '.'];
+    try {
+      loadCjs(path.join(DIST, 'main.cjs'), electron);
+    } finally {
+      process.argv = savedArgv;
+    }
+    ready();
+    await new Promise((r) => setTimeout(r, 50));
+
+    expect(windows.length).toBe(1);
+    const w = windows[0];
+    expect(w.url).toBe('app://furrow/index.html');
+    expect(w.options.webPreferences).toMatchObject({ contextIsolation: true, nodeIntegration: false, sandbox: true });
+    expect(w.options.webPreferences.preload).toBe(path.join(DIST, 'preload.cjs'));
+    expect(w.openHandler?.()).toEqual({ action: 'deny' });
+    let prevented = false;
+    w.wcHandlers.get('will-navigate')!({ preventDefault: () => { prevented = true; } }, 'https://example.com/');
+    expect(prevented).toBe(true);
+
+    expect([...handles.keys()].sort()).toEqual([CHANNELS.initialFile, CHANNELS.openFile, CHANNELS.openRecent, CHANNELS.recentFiles, CHANNELS.saveFile].sort());
+    expect([...ons.keys()]).toEqual([CHANNELS.setDocumentState]);
+
+    const ours = { senderFrame: { url: 'app://furrow/index.html' }, sender: {} };
+    const foreign = { senderFrame: { url: 'https://example.com/' }, sender: {} };
+    const open = handles.get(CHANNELS.openFile)!;
+    expect(await open(foreign, 'drawing')).toMatchObject({ ok: false });
+    expect(await open(ours, 'pdf')).toMatchObject({ ok: false, error: { kind: 'invalid-argument' } });
+    expect(await open(ours, 'drawing')).toEqual({ ok: true, value: { path: drawing, name: 'site.dxf', text: '0\nEOF\n' } });
+    expect(await handles.get(CHANNELS.recentFiles)!(ours)).toEqual([drawing]);
+    expect(await handles.get(CHANNELS.openRecent)!(ours, '/etc/passwd')).toMatchObject({ ok: false });
+    expect(await handles.get(CHANNELS.saveFile)!(ours, { kind: 'dxf', suggestedName: '../x.dxf', data: '' })).toMatchObject({ ok: false });
+
+    // the app:// scheme serves renderer/dist with the CSP header and nothing outside it
+    const distIndex = path.join(REPO, 'renderer', 'dist', 'index.html');
+    if (fs.existsSync(distIndex)) {
+      const res = await protocolHandler!({ url: 'app://furrow/index.html' });
+      expect(res.status).toBe(200);
+      expect(res.headers.get('content-security-policy')).toContain("script-src 'self'");
+    }
+    expect((await protocolHandler!({ url: 'app://furrow/..%2f..%2fpackage.json' })).status).toBe(404);
+    fs.rmSync(tmp, { recursive: true, force: true });
+  });
+});
