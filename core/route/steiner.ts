@@ -3,9 +3,21 @@
 // a lower bound and the gap.
 
 import { Cancelled } from '../result';
-import { componentOf, edgeCost, type Graph } from './graph';
+import { componentOf, edgeCost, withWeights, type Graph } from './graph';
+import { dualAscent } from './dualAscent';
+import { LocalSearch } from './localSearch';
+import { makeRng } from './rng';
 import { shortestPathHeuristic, SphWorkspace } from './sph';
 import { mstPrune, TreeScratch, treeVertices } from './tree';
+
+const DEFAULT_BUDGET_MS = 2000;
+const DEFAULT_MAX_ITERATIONS = 200;
+const FIRST_PLAIN_ROOTS = 4;
+const STALL_MIN = 16;
+const PERTURB_MIN = 0.05;
+const PERTURB_MAX = 0.3;
+const LB_BUDGET_SHARE = 0.25;
+const now = () => performance.now();
 
 export interface SteinerOptions {
   seed?: number;
@@ -60,25 +72,60 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
 
   const isTerminal = new Uint8Array(g.n);
   for (const t of terms) isTerminal[t] = 1;
+  const t0 = now();
+  const budgetMs = opts.timeBudgetMs ?? DEFAULT_BUDGET_MS;
+  const maxIter = opts.maxIterations ?? DEFAULT_MAX_ITERATIONS;
+  const stop = () => opts.signal?.aborted === true || now() - t0 > budgetMs;
+  // lower bound first: a proven-optimal tree ends the search early
+  let lowerBound = 0;
+  if (opts.lowerBound !== false) {
+    const da = dualAscent(g, terms, terms[0], () => opts.signal?.aborted === true || now() - t0 > budgetMs * LB_BUDGET_SHARE);
+    lowerBound = da.lowerBound;
+  }
   const ws = new SphWorkspace(g.n);
   const scratch = new TreeScratch(g);
-  const maxRoots = Math.min(terms.length, opts.maxIterations ?? 8);
+  const ls = new LocalSearch(g);
+  const rng = makeRng(opts.seed ?? 1);
   let best: Int32Array | null = null;
   let bestCost = Infinity;
   let iterations = 0;
-  for (let r = 0; r < maxRoots; r++) {
-    if (opts.signal?.aborted) break;
-    const raw = shortestPathHeuristic(g, terms, isTerminal, terms[r], ws);
-    if (!raw) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
-    const tree = mstPrune(g, treeVertices(g, raw, scratch), isTerminal, scratch);
+  let stall = 0;
+  const consider = (tree: Int32Array) => {
     const c = edgeCost(g, tree);
-    iterations++;
-    if (c < bestCost) {
+    if (c < bestCost - 1e-9) {
       bestCost = c;
       best = tree;
+      stall = 0;
+    } else stall++;
+  };
+  const pert = new Float64Array(g.m);
+  const pg = withWeights(g, pert);
+  const stallLimit = Math.max(STALL_MIN, terms.length);
+  for (let it = 0; it < maxIter; it++) {
+    if (best && (stop() || stall >= stallLimit || bestCost <= lowerBound + 1e-9 * bestCost)) break;
+    let tree: Int32Array | null;
+    if (it < Math.min(terms.length, FIRST_PLAIN_ROOTS)) {
+      // plain SPH from the first few terminals
+      tree = shortestPathHeuristic(g, terms, isTerminal, terms[it], ws);
+      if (!tree) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
+      tree = mstPrune(g, treeVertices(g, tree, scratch), isTerminal, scratch);
+    } else {
+      // SPH on randomly perturbed weights from a random terminal, to leave the local optimum
+      const amp = PERTURB_MIN + (PERTURB_MAX - PERTURB_MIN) * rng();
+      for (let e = 0; e < g.m; e++) pert[e] = g.weight[e] * (1 + amp * rng());
+      tree = shortestPathHeuristic(pg, terms, isTerminal, terms[Math.floor(rng() * terms.length)], ws);
+      if (!tree) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
+      tree = mstPrune(pg, treeVertices(g, tree, scratch), isTerminal, scratch);
+      tree = ls.improve(tree, isTerminal, () => opts.signal?.aborted === true, pg);
     }
-    opts.onProgress?.((r + 1) / maxRoots, bestCost);
+    tree = ls.improve(tree, isTerminal, () => opts.signal?.aborted === true, g);
+    iterations++;
+    consider(tree);
+    opts.onProgress?.(Math.min(1, Math.max((now() - t0) / budgetMs, (it + 1) / maxIter, stall / stallLimit)), bestCost);
   }
   if (!best) throw new Cancelled();
-  return { edges: best, cost: bestCost, lowerBound: 0, gap: bestCost > 0 ? 1 : 0, optimal: false, iterations };
+  const edges: Int32Array = best;
+  const lb = Math.min(lowerBound, bestCost);
+  const gap = bestCost > 0 ? (bestCost - lb) / bestCost : 0;
+  return { edges, cost: bestCost, lowerBound: lb, gap, optimal: gap <= 1e-9, iterations };
 }
