@@ -5,6 +5,7 @@
 import { Cancelled } from '../result';
 import { componentOf, edgeCost, withWeights, type Graph } from './graph';
 import { dualAscent } from './dualAscent';
+import { EXACT_DEFAULT_MAX_STATES, exactFits, steinerExact } from './exact';
 import { LocalSearch } from './localSearch';
 import { makeRng } from './rng';
 import { shortestPathHeuristic, SphWorkspace } from './sph';
@@ -17,6 +18,7 @@ const STALL_MIN = 16;
 const PERTURB_MIN = 0.05;
 const PERTURB_MAX = 0.3;
 const LB_BUDGET_SHARE = 0.25;
+const DEFAULT_EXACT_MAX_TERMINALS = 8;
 const now = () => performance.now();
 
 export interface SteinerOptions {
@@ -25,7 +27,10 @@ export interface SteinerOptions {
   maxIterations?: number;
   onProgress?: (fraction: number, bestCost: number) => void;
   signal?: { readonly aborted: boolean };
-  /** Use the exact solver when terminals <= this and the graph is small enough. */
+  /**
+   * Use the exact solver (Dreyfus–Wagner) when terminals <= this and 2^(terminals-1) * nodes
+   * <= 4,194,304 table entries. Default 8; 0 turns it off.
+   */
   exactMaxTerminals?: number;
   /** Compute a lower bound (default true). */
   lowerBound?: boolean;
@@ -60,8 +65,11 @@ export function normalizeTerminals(g: Graph, terminals: ArrayLike<number>): numb
 /**
  * Finds a Steiner tree connecting `terminals` in `g`.
  * Throws an Error naming the terminals that are not connected to the first one (use
- * splitReachableTerminals in graph.ts to drop them first). On cancellation returns the best
- * tree found so far; throws Cancelled only if no tree exists yet.
+ * splitReachableTerminals in graph.ts to drop them first). On cancellation (signal.aborted)
+ * returns the best tree found so far; throws Cancelled (core/result.ts) only if no tree exists
+ * yet, which cannot happen after the first shortest-path tree (a few ms). Deterministic for a
+ * given seed and budget as long as the time budget is not what ends the search (set
+ * maxIterations and a generous timeBudgetMs for byte-identical runs across machines).
  */
 export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: SteinerOptions = {}): SteinerResult {
   const terms = normalizeTerminals(g, terminals);
@@ -70,9 +78,17 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
   const cut = terms.filter((t) => comp[t] !== comp[terms[0]]);
   if (cut.length > 0) throw new Error(`solveSteiner: terminals not connected to terminal ${terms[0]}: ${cut.join(', ')}`);
 
+  const t0 = now();
+  const exactMax = opts.exactMaxTerminals ?? DEFAULT_EXACT_MAX_TERMINALS;
+  if (terms.length <= exactMax && exactFits(g.n, terms.length, EXACT_DEFAULT_MAX_STATES)) {
+    const ex = steinerExact(g, terms, { signal: opts.signal });
+    if (ex) {
+      opts.onProgress?.(1, ex.cost);
+      return { edges: ex.edges, cost: ex.cost, lowerBound: ex.cost, gap: 0, optimal: true, iterations: 1 };
+    }
+  }
   const isTerminal = new Uint8Array(g.n);
   for (const t of terms) isTerminal[t] = 1;
-  const t0 = now();
   const budgetMs = opts.timeBudgetMs ?? DEFAULT_BUDGET_MS;
   const maxIter = opts.maxIterations ?? DEFAULT_MAX_ITERATIONS;
   const stop = () => opts.signal?.aborted === true || now() - t0 > budgetMs;
