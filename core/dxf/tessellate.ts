@@ -82,9 +82,9 @@ export function ellipsePoints(
   while (sweep <= 0) sweep += TWO_PI;
   const closed = Math.abs(sweep - TWO_PI) < 1e-9 || sweep > TWO_PI;
   if (closed) sweep = TWO_PI;
-  // the smallest radius of curvature of an ellipse is b^2/a (at the major-axis ends): step on that
-  const rMin = a > 0 ? (b * b) / a : 0;
-  const n = Math.max(closed ? 8 : 1, arcSteps(Math.max(rMin, 1e-12), sweep, tol));
+  // in the parameter t the chord error is a*dt^2/8 at worst (at the major-axis ends the curvature
+  // radius is b^2/a and the tangent turns a/b per unit t), the same as a circle of radius a
+  const n = Math.max(closed ? 8 : 1, arcSteps(Math.max(a, 1e-12), sweep, tol));
   const ux = a > 0 ? mx / a : 1;
   const uy = a > 0 ? my / a : 0;
   const out: number[] = [];

@@ -178,15 +178,15 @@ function resolveRoles(drawing: Drawing, given: Record<string, LayerRole> | undef
 function cleanRings(rings: LayeredRing[], minArea: number, role: LayerRole, warnings: string[], where: (x: number, y: number) => string): LayeredRing[] {
   const out: LayeredRing[] = [];
   for (const r of rings) {
-    if (r.ring.length < 6 || Math.abs(signedArea(r.ring)) <= minArea) {
-      warnings.push(`zero-area ring on ${role} layer ${r.layer} at ${where(r.ring[0], r.ring[1])} skipped`);
-      continue;
-    }
-    const hit = selfIntersection(r.ring);
+    const hit = r.ring.length >= 8 ? selfIntersection(r.ring) : null;
     if (hit) {
       const parts = repairRing(r.ring, minArea);
       warnings.push(`self-intersecting outline on ${role} layer ${r.layer} near ${where(hit.x, hit.y)} repaired into ${parts.length} simple ring(s)`);
       for (const p of parts) out.push({ ring: p, layer: r.layer });
+      continue;
+    }
+    if (r.ring.length < 6 || Math.abs(signedArea(r.ring)) <= minArea) {
+      warnings.push(`zero-area ring on ${role} layer ${r.layer} at ${where(r.ring[0], r.ring[1])} skipped`);
       continue;
     }
     out.push(r);
