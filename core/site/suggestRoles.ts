@@ -13,7 +13,7 @@ const KEYWORDS: readonly { role: LayerRole; words: readonly string[] }[] = [
   { role: 'building', words: ['BLDG', 'BLD', 'BUILDING', 'BUILDINGS', 'FOOTPRINT', 'FTPRNT', 'STRUCTURE', 'STRUC', 'STRUCT', 'HOUSE', 'DWELLING', 'SHED', 'GARAGE', 'WAREHOUSE', 'ROOF'] },
   { role: 'keep-out', words: ['KEEPOUT', 'KEEP', 'NODIG', 'NO-DIG', 'EXCLUSION', 'TPZ', 'PROTECT', 'PROTECTION', 'POND', 'WETLAND', 'WETLANDS', 'POOL', 'BASIN', 'BIORET', 'BIORETENTION', 'GRAVE', 'CEMETERY', 'FOUNDATION'] },
   { role: 'pavement', words: ['PAVE', 'PAVEMENT', 'PAVING', 'PVMT', 'ASPH', 'ASPHALT', 'ROAD', 'ROADWAY', 'STREET', 'STR', 'DRIVE', 'DRIVEWAY', 'DRWY', 'PARKING', 'PARK', 'PKG', 'SIDEWALK', 'SDWK', 'WALK', 'CONC', 'CONCRETE', 'HARDSCAPE', 'PLAZA', 'APRON'] },
-  { role: 'boundary', words: ['BOUNDARY', 'BNDY', 'BDRY', 'BDY', 'PROP', 'PROPERTY', 'PL', 'PARCEL', 'LOT', 'LIMIT', 'LIMITS', 'LOW', 'SITE', 'ROW'] },
+  { role: 'boundary', words: ['BOUNDARY', 'BNDY', 'BDRY', 'BDY', 'PROP', 'PROPERTY', 'PL', 'PARCEL', 'LIMIT', 'LIMITS', 'LOW', 'SITE', 'ROW'] },
   { role: 'crossing', words: ['CURB', 'KERB', 'GUTTER', 'FENCE', 'WALL', 'GUARDRAIL', 'RAIL', 'RAILWAY', 'TRACK', 'DITCH', 'SWALE', 'CHANNEL', 'CREEK', 'EX', 'EXIST', 'EXST', 'EXISTING', 'UTIL', 'UTILITY', 'UTILITIES', 'WATER', 'WTR', 'WM', 'SEWER', 'SAN', 'SANITARY', 'SS', 'STORM', 'STM', 'SD', 'GAS', 'ELEC', 'ELECTRIC', 'POWER', 'PWR', 'TEL', 'TELE', 'PHONE', 'COMM', 'FIBER', 'FIBRE', 'FO', 'CATV', 'CABLE', 'IRRIG', 'IRRIGATION', 'PIPE', 'MAIN', 'CULVERT', 'DUCT', 'CONDUIT'] },
 ];
 
