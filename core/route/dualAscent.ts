@@ -37,9 +37,8 @@ export function dualAscent(g: Graph, terminals: ArrayLike<number>, root: number,
   for (let i = 0; i < terminals.length; i++) if (terminals[i] !== root) queue.push(terminals[i], 0);
   let lb = 0;
   let complete = true;
-  let steps = 0;
   while (queue.size > 0) {
-    if ((++steps & 63) === 0 && stop()) {
+    if (stop()) {
       complete = false;
       break;
     }
