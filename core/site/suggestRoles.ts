@@ -28,14 +28,15 @@ export function layerWords(name: string): string[] {
 }
 
 function matchWord(words: string[], keywords: readonly string[]): string | null {
+  for (const w of words) if (keywords.includes(w)) return w;
+  // longer keywords also match as a prefix (BUILDINGS, PAVED, FENCING); the longest wins
+  let best: string | null = null;
   for (const w of words) {
     for (const k of keywords) {
-      if (w === k) return k;
-      // longer keywords also match as a prefix (BUILDINGS, PAVED, FENCING)
-      if (k.length >= 4 && w.startsWith(k)) return k;
+      if (k.length >= 4 && w.startsWith(k) && (best === null || k.length > best.length)) best = k;
     }
   }
-  return null;
+  return best;
 }
 
 /** A building-size closed shape: 10 m² to 100 000 m² (practice: sheds to large warehouses). */
