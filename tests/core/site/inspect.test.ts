@@ -14,7 +14,7 @@ describe('inspectDrawing', () => {
     expect(r.units).toBe('m');
     expect(r.buildings.count).toBe(2);
     expect(r.buildings.area).toBeCloseTo(1650, 6);
-    expect(r.layers.find((l) => l.name === 'A-BLDG')).toEqual({ name: 'A-BLDG', entities: 2, role: 'building', reason: "suggested: layer name contains 'BLDG'" });
+    expect(r.layers.find((l) => l.name === 'A-BLDG')).toEqual({ name: 'A-BLDG', entities: 3, role: 'building', reason: "suggested: layer name contains 'BLDG'" });
     expect(r.extents).toEqual(d.header.extents);
     expect(inspectText(r)).toMatch(/buildings 2, footprint area 1650\.00 m²/);
   });
