@@ -100,6 +100,8 @@ export interface TakeOffTotals {
 
 export interface TakeOff {
   units: LengthUnit;
+  /** The network's frame: drawing = local / scale + origin (for coordinates in schedules). */
+  frame: TrenchNetwork['frame'];
   labels: { length: string; area: string; volume: string };
   currency: string;
   segments: SegmentRow[];
@@ -319,7 +321,7 @@ export function computeTakeOff(net: TrenchNetwork, terminals: Terminal[], settin
   };
   if (lines.some((l) => l.priceKey !== null)) warnings.push('Unit prices marked PLACEHOLDER must be replaced before the costs are used.');
   return {
-    units, labels: lab, currency: settings.currency, segments: segRows, utilities: utilRows, lines, totals,
+    units, frame: { ...net.frame }, labels: lab, currency: settings.currency, segments: segRows, utilities: utilRows, lines, totals,
     pullBoxes: boxes, contents, warnings, notice: { title: NOTICE_TITLE, lines: NOTICE_LINES },
   };
 }
