@@ -56,4 +56,6 @@ export interface TrenchNetwork {
   /** Terminal ids that could not be reached, each with the reason. */
   unreachable: { id: string; reason: string }[];
   warnings: string[];
+  /** Optional: milliseconds per routing stage (grid, attach, solve, bound, shape, total). */
+  timingsMs?: Record<string, number>;
 }

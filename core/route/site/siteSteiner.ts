@@ -1,0 +1,606 @@
+// Steiner tree on the routing grid with bends priced exactly (state expansion).
+//
+// The expanded graph. A state is (grid node v, direction d of travel on arrival at v): index
+// v*8+d. Moving on from (v,d) in direction e costs the move (length × surface + crossings)
+// plus the bend from d to e, priced by the true turning angle (bendPenalty·θ/90°); reversing
+// is not a move. Every grid node also has a hub: the hub is joined to all eight of its states
+// at zero cost, and a tree may only branch at a hub. So a junction can form at any node, a
+// branch leaving a junction pays no bend (the fitting is a tee), and along every path between
+// hubs each change of direction is charged once at its true angle. A terminal is the hub of its
+// grid node; arriving at it from direction d also pays the turn into its stub (attach.ts).
+// The tree is stored as grid edges (a bit per direction per node); its cost is the sum of its
+// moves, the bend at each node of degree 2 and the turn into each terminal's stub.
+//
+// Construction: the shortest-path heuristic of Takahashi & Matsuyama (1980) on the expanded
+// graph — grow from a root, each round adding the cheapest state path from the tree to a
+// terminal not yet joined (Dijkstra from all hubs of the tree at once).
+// Local search: key-path exchange (as in Uchoa & Werneck 2010, "Fast local search for Steiner
+// trees in graphs"): remove a path between key nodes (terminals, junctions) and reconnect the
+// two parts by the cheapest state path when that is cheaper.
+// Perturbation: restarts from other roots (seeded order); the cheapest tree wins.
+
+import { Cancelled, type Progress } from '../../result';
+import type { Anchor } from './attach';
+import { bendTable, DX, DY, moveCost, styleMask, type RoutingGrid } from './routingGrid';
+import { StateHeap } from './stateHeap';
+
+export interface SiteTree {
+  /** Bit d at node v: the tree uses the grid edge from v in direction d. */
+  adj: Uint8Array;
+  /** Tree nodes in increasing order. */
+  nodes: Int32Array;
+  cost: number;
+  /** Anchors (by index) that were joined. */
+  joined: number[];
+  rounds: number;
+}
+
+export interface SolveOptions {
+  seed: number;
+  timeBudgetMs: number;
+  maxRestarts?: number;
+  onProgress?: Progress;
+  signal?: { readonly aborted: boolean };
+}
+
+const OPP = (d: number): number => (d + 4) & 7;
+
+function popcount8(b: number): number {
+  b = b - ((b >> 1) & 0x55);
+  b = (b & 0x33) + ((b >> 2) & 0x33);
+  return (b + (b >> 4)) & 0x0f;
+}
+
+/** Small deterministic generator (mulberry32) for restart order. */
+function rng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+export class SiteSteiner {
+  private readonly g: RoutingGrid;
+  private readonly off: Int32Array;
+  private readonly bend: Float64Array;
+  private readonly mask: number;
+  private readonly dist: Float64Array;
+  private readonly pred: Int32Array;
+  private readonly stamp: Int32Array;
+  private epoch = 0;
+  private readonly heap = new StateHeap(1 << 16);
+  /** 0 free, 1 source (not entered), 2 target. */
+  private readonly mark: Uint8Array;
+  private readonly adj: Uint8Array;
+  private treeList: number[] = [];
+  private readonly anchors: readonly Anchor[];
+  /** arrive[a*8+d]: turning cost into anchor a's stub when arriving in direction d. */
+  private readonly arrive: Float64Array;
+  private readonly anchorsAt = new Map<number, number[]>();
+  private readonly joined: Uint8Array;
+  private targetCost: (v: number, d: number) => number = () => 0;
+  private rootNode = 0;
+
+  constructor(g: RoutingGrid, anchors: readonly Anchor[]) {
+    this.g = g;
+    this.off = new Int32Array(8);
+    for (let d = 0; d < 8; d++) this.off[d] = DX[d] + DY[d] * g.nx;
+    this.bend = bendTable(g.params.bendPenalty);
+    this.mask = styleMask(g.params.style);
+    const ns = g.n * 8;
+    this.dist = new Float64Array(ns);
+    this.pred = new Int32Array(ns);
+    this.stamp = new Int32Array(ns);
+    this.mark = new Uint8Array(g.n);
+    this.adj = new Uint8Array(g.n);
+    this.anchors = anchors;
+    this.arrive = new Float64Array(anchors.length * 8);
+    this.joined = new Uint8Array(anchors.length);
+    anchors.forEach((a, i) => {
+      const list = this.anchorsAt.get(a.node);
+      if (list) list.push(i);
+      else this.anchorsAt.set(a.node, [i]);
+      for (let d = 0; d < 8; d++) {
+        if (a.ax === 0 && a.ay === 0) continue;
+        const len = Math.hypot(DX[d], DY[d]);
+        const cos = Math.max(-1, Math.min(1, (DX[d] * a.ax + DY[d] * a.ay) / len));
+        this.arrive[i * 8 + d] = (g.params.bendPenalty * ((Math.acos(cos) * 180) / Math.PI)) / 90;
+      }
+    });
+  }
+
+  /** Dijkstra over states from every source node (mark 1) to the cheapest target (mark 2). */
+  private search(sources: readonly number[], seedBend: ((v: number, d: number) => number) | null): { state: number; cost: number } {
+    const g = this.g, off = this.off, bend = this.bend, mask = this.mask;
+    const dist = this.dist, pred = this.pred, stamp = this.stamp, mark = this.mark, heap = this.heap;
+    const ep = ++this.epoch;
+    heap.clear();
+    for (const v of sources) {
+      const bits = g.moves[v] & mask;
+      if (bits === 0) continue;
+      for (let d = 0; d < 8; d++) {
+        if (!((bits >> d) & 1)) continue;
+        const u = v + off[d];
+        if (mark[u] === 1) continue;
+        const c = moveCost(g, v, d) + (seedBend ? seedBend(v, d) : 0);
+        const s = u * 8 + d;
+        if (stamp[s] !== ep || c < dist[s]) {
+          stamp[s] = ep;
+          dist[s] = c;
+          pred[s] = -1;
+          heap.push(c, s);
+        }
+      }
+    }
+    let best = Infinity, bestState = -1;
+    while (heap.size > 0) {
+      const s = heap.pop();
+      const k = heap.lastKey;
+      if (k > dist[s]) continue;
+      if (k >= best) break;
+      const v = s >> 3, d = s & 7;
+      if (mark[v] === 2) {
+        const cand = k + this.targetCost(v, d);
+        if (cand < best) { best = cand; bestState = s; }
+      }
+      const bits = g.moves[v] & mask;
+      const back = OPP(d);
+      for (let e = 0; e < 8; e++) {
+        if (e === back || !((bits >> e) & 1)) continue;
+        const u = v + off[e];
+        if (mark[u] === 1) continue;
+        const nk = k + bend[d * 8 + e] + moveCost(g, v, e);
+        const s2 = u * 8 + e;
+        if (stamp[s2] !== ep || nk < dist[s2]) {
+          stamp[s2] = ep;
+          dist[s2] = nk;
+          pred[s2] = s;
+          heap.push(nk, s2);
+        }
+      }
+    }
+    return { state: bestState, cost: best };
+  }
+
+  /** Adds the state path ending in `state` to the tree; returns its nodes from the target back. */
+  private addPath(state: number): number[] {
+    const nodes: number[] = [];
+    let s = state;
+    for (;;) {
+      const v = s >> 3, d = s & 7;
+      const p = v - this.off[d];
+      this.adj[p] |= 1 << d;
+      this.adj[v] |= 1 << OPP(d);
+      nodes.push(v);
+      if (this.pred[s] < 0) { nodes.push(p); break; }
+      s = this.pred[s];
+    }
+    for (const v of nodes) if (this.mark[v] !== 1) { this.mark[v] = 1; this.treeList.push(v); }
+    return nodes;
+  }
+
+  private terminalTargetCost = (v: number, d: number): number => {
+    let best = Infinity;
+    for (const a of this.anchorsAt.get(v) ?? []) {
+      if (this.joined[a]) continue;
+      const c = this.arrive[a * 8 + d];
+      if (c < best) best = c;
+    }
+    return best;
+  };
+
+  /** Takahashi–Matsuyama construction from anchor `root` over the anchors in `members`. */
+  private construct(root: number, members: readonly number[], deadline: number, opts: SolveOptions, first: boolean): boolean {
+    this.adj.fill(0);
+    this.mark.fill(0);
+    this.joined.fill(0);
+    this.treeList = [];
+    const rootNode = this.anchors[root].node;
+    this.rootNode = rootNode;
+    this.mark[rootNode] = 1;
+    this.treeList.push(rootNode);
+    for (const a of this.anchorsAt.get(rootNode) ?? []) this.joined[a] = 1;
+    let left = members.filter((a) => !this.joined[a]).length;
+    const total = left;
+    this.targetCost = this.terminalTargetCost;
+    while (left > 0) {
+      if (opts.signal?.aborted) {
+        if (first) throw new Cancelled();
+        return false;
+      }
+      if (!first && performance.now() > deadline) return false;
+      for (const a of members) if (!this.joined[a] && this.mark[this.anchors[a].node] !== 1) this.mark[this.anchors[a].node] = 2;
+      const lone = this.treeList.length === 1;
+      const seedBend = lone ? (v: number, d: number): number => {
+        let c = Infinity;
+        for (const a of this.anchorsAt.get(v) ?? []) c = Math.min(c, this.arrive[a * 8 + OPP(d)]);
+        return c === Infinity ? 0 : c;
+      } : null;
+      const r = this.search(this.treeList, seedBend);
+      for (const a of members) if (this.mark[this.anchors[a].node] === 2) this.mark[this.anchors[a].node] = 0;
+      if (r.state < 0) throw new Error('siteSteiner: a terminal of the routed component was not reached');
+      this.addPath(r.state);
+      for (const a of members) {
+        if (!this.joined[a] && this.mark[this.anchors[a].node] === 1) { this.joined[a] = 1; left--; }
+      }
+      if (first) opts.onProgress?.('route', 0.6 * (1 - left / Math.max(1, total)));
+    }
+    return true;
+  }
+
+  private isAnchorNode(v: number): boolean {
+    return this.anchorsAt.has(v);
+  }
+
+  /** Full cost of the current tree: moves, bends at degree-2 nodes, turns into stubs. */
+  treeCost(): number {
+    const g = this.g;
+    let c = 0;
+    for (const v of this.treeList) {
+      const bits = this.adj[v];
+      if (bits === 0) continue;
+      for (let d = 0; d < 4; d++) if ((bits >> d) & 1) c += moveCost(g, v, d);
+      const deg = popcount8(bits);
+      if (deg === 2 && !this.isAnchorNode(v)) {
+        let a = -1, b = -1;
+        for (let d = 0; d < 8; d++) if ((bits >> d) & 1) { if (a < 0) a = d; else b = d; }
+        c += this.bend[OPP(a) * 8 + b];
+      } else if (deg === 1 && this.isAnchorNode(v)) {
+        let e = 0;
+        while (!((bits >> e) & 1)) e++;
+        let m = Infinity;
+        for (const a of this.anchorsAt.get(v)!) m = Math.min(m, this.arrive[a * 8 + OPP(e)]);
+        c += m;
+      }
+    }
+    return c;
+  }
+
+  /** Key paths: maximal runs through degree-2 non-terminal nodes, each listed once. */
+  private keyPaths(): { nodes: number[]; dirs: number[]; cost: number }[] {
+    const out: { nodes: number[]; dirs: number[]; cost: number }[] = [];
+    const isKey = (v: number): boolean => this.isAnchorNode(v) || popcount8(this.adj[v]) !== 2;
+    for (const s of this.treeList) {
+      if (this.adj[s] === 0 || !isKey(s)) continue;
+      for (let d0 = 0; d0 < 8; d0++) {
+        if (!((this.adj[s] >> d0) & 1)) continue;
+        const nodes = [s];
+        const dirs: number[] = [];
+        let v = s, d = d0, cost = 0, prevD = -1;
+        for (;;) {
+          cost += moveCost(this.g, v, d);
+          if (prevD >= 0) cost += this.bend[prevD * 8 + d];
+          dirs.push(d);
+          v += this.off[d];
+          nodes.push(v);
+          if (isKey(v)) break;
+          prevD = d;
+          const bits = this.adj[v] & ~(1 << OPP(d));
+          let e = 0;
+          while (!((bits >> e) & 1)) e++;
+          d = e;
+        }
+        const end = nodes[nodes.length - 1];
+        if (s < end || (s === end && d0 < OPP(dirs[dirs.length - 1]))) out.push({ nodes, dirs, cost });
+      }
+    }
+    out.sort((a, b) => b.cost - a.cost || a.nodes[0] - b.nodes[0] || a.dirs[0] - b.dirs[0]);
+    return out;
+  }
+
+  private setPath(nodes: number[], dirs: number[], on: boolean): void {
+    for (let i = 0; i < dirs.length; i++) {
+      const v = nodes[i], d = dirs[i], u = nodes[i + 1];
+      if (on) { this.adj[v] |= 1 << d; this.adj[u] |= 1 << OPP(d); } else { this.adj[v] &= ~(1 << d); this.adj[u] &= ~(1 << OPP(d)); }
+    }
+  }
+
+  /** Marks the tree component containing `start` with `value`; returns its nodes. */
+  private component(start: number, value: number): number[] {
+    const out = [start];
+    this.mark[start] = value;
+    for (let i = 0; i < out.length; i++) {
+      const v = out[i];
+      const bits = this.adj[v];
+      for (let d = 0; d < 8; d++) {
+        if (!((bits >> d) & 1)) continue;
+        const u = v + this.off[d];
+        if (this.mark[u] !== value) { this.mark[u] = value; out.push(u); }
+      }
+    }
+    return out;
+  }
+
+  /** Key-path exchange until no path improves or the deadline passes; returns improvements made. */
+  private improve(deadline: number, signal?: { readonly aborted: boolean }): number {
+    let gains = 0;
+    for (let pass = 0; pass < 4; pass++) {
+      let improved = false;
+      for (const kp of this.keyPaths()) {
+        if (signal?.aborted || performance.now() > deadline) return gains;
+        let intact = true;
+        for (let i = 0; i < kp.dirs.length && intact; i++) intact = ((this.adj[kp.nodes[i]] >> kp.dirs[i]) & 1) === 1;
+        if (!intact) continue;
+        this.setPath(kp.nodes, kp.dirs, false);
+        for (const v of this.treeList) this.mark[v] = 0;
+        const a = this.component(kp.nodes[0], 1);
+        const b = this.component(kp.nodes[kp.nodes.length - 1], 2);
+        this.targetCost = () => 0;
+        const r = this.search(a, null);
+        if (r.state >= 0 && r.cost < kp.cost - 1e-9) {
+          for (let i = 1; i < kp.nodes.length - 1; i++) this.mark[kp.nodes[i]] = 0;
+          this.addPathRaw(r.state);
+          improved = true;
+          gains++;
+        } else {
+          this.setPath(kp.nodes, kp.dirs, true);
+        }
+        for (const v of a) this.mark[v] = 0;
+        for (const v of b) this.mark[v] = 0;
+        this.rebuildTreeList();
+      }
+      if (!improved) break;
+    }
+    return gains;
+  }
+
+  /** Adds the state path ending in `state`; returns the grid edges it newly set as (node, dir) pairs. */
+  private addPathRaw(state: number): number[] {
+    const added: number[] = [];
+    let s = state;
+    for (;;) {
+      const v = s >> 3, d = s & 7;
+      const p = v - this.off[d];
+      if (!((this.adj[p] >> d) & 1)) added.push(p, d);
+      this.adj[p] |= 1 << d;
+      this.adj[v] |= 1 << OPP(d);
+      if (this.pred[s] < 0) break;
+      s = this.pred[s];
+    }
+    return added;
+  }
+
+  /** Bounded Dijkstra from the source nodes (mark 1); records the cheapest arrival per node. */
+  private explore(sources: readonly number[], bound: number, out: Float64Array, outStamp: Int32Array, ep: number, touched: number[]): void {
+    const g = this.g, off = this.off, bend = this.bend, mask = this.mask;
+    const dist = this.dist, stamp = this.stamp, mark = this.mark, heap = this.heap;
+    const se = ++this.epoch;
+    heap.clear();
+    for (const v of sources) {
+      if (outStamp[v] !== ep) { outStamp[v] = ep; out[v] = 0; touched.push(v); }
+      const bits = g.moves[v] & mask;
+      for (let d = 0; d < 8; d++) {
+        if (!((bits >> d) & 1)) continue;
+        const u = v + off[d];
+        if (mark[u] === 1) continue;
+        const c = moveCost(g, v, d);
+        if (c > bound) continue;
+        const st = u * 8 + d;
+        if (stamp[st] !== se || c < dist[st]) { stamp[st] = se; dist[st] = c; heap.push(c, st); }
+      }
+    }
+    while (heap.size > 0) {
+      const st = heap.pop();
+      const k = heap.lastKey;
+      if (k > dist[st]) continue;
+      const v = st >> 3, d = st & 7;
+      if (outStamp[v] !== ep) { outStamp[v] = ep; out[v] = k; touched.push(v); } else if (k < out[v]) out[v] = k;
+      const bits = g.moves[v] & mask;
+      const back = OPP(d);
+      for (let e = 0; e < 8; e++) {
+        if (e === back || !((bits >> e) & 1)) continue;
+        const u = v + off[e];
+        if (mark[u] === 1) continue;
+        const nk = k + bend[d * 8 + e] + moveCost(g, v, e);
+        if (nk > bound) continue;
+        const s2 = u * 8 + e;
+        if (stamp[s2] !== se || nk < dist[s2]) { stamp[s2] = se; dist[s2] = nk; heap.push(nk, s2); }
+      }
+    }
+  }
+
+  private walkKeyPath(x: number, d0: number): { nodes: number[]; dirs: number[]; cost: number } {
+    const nodes = [x];
+    const dirs: number[] = [];
+    let v = x, d = d0, cost = 0, prevD = -1;
+    for (;;) {
+      cost += moveCost(this.g, v, d);
+      if (prevD >= 0) cost += this.bend[prevD * 8 + d];
+      dirs.push(d);
+      v += this.off[d];
+      nodes.push(v);
+      if (this.isAnchorNode(v) || popcount8(this.adj[v]) !== 2) break;
+      prevD = d;
+      const bits = this.adj[v] & ~(1 << OPP(d));
+      let e = 0;
+      while (!((bits >> e) & 1)) e++;
+      d = e;
+    }
+    return { nodes, dirs, cost };
+  }
+
+  private starBuf: { dist: Float64Array[]; stamp: Int32Array[]; epoch: number } | null = null;
+
+  /**
+   * Star exchange: remove some key paths at key node x (all of them when x is a junction and
+   * not a terminal, else a pair) and reconnect the parts through one hub node, the node
+   * minimising the sum of the parts' distances to it (key-vertex elimination when x goes).
+   */
+  private starExchange(deadline: number, signal?: { readonly aborted: boolean }): number {
+    if (!this.starBuf) {
+      this.starBuf = { dist: [0, 1, 2, 3].map(() => new Float64Array(this.g.n)), stamp: [0, 1, 2, 3].map(() => new Int32Array(this.g.n)), epoch: 0 };
+    }
+    const buf = this.starBuf;
+    let gains = 0;
+    const keys = this.treeList.filter((v) => this.adj[v] !== 0 && (this.isAnchorNode(v) || popcount8(this.adj[v]) >= 3)).sort((a, b) => a - b);
+    for (const x of keys) {
+      const deg = popcount8(this.adj[x]);
+      if (deg < 2) continue;
+      const dirs: number[] = [];
+      for (let d = 0; d < 8; d++) if ((this.adj[x] >> d) & 1) dirs.push(d);
+      const groups: number[][] = [];
+      if (!this.isAnchorNode(x) && deg >= 3 && deg <= 4) groups.push(dirs);
+      for (let i = 0; i < dirs.length; i++) for (let j = i + 1; j < dirs.length; j++) groups.push([dirs[i], dirs[j]]);
+      for (const grp of groups) {
+        if (signal?.aborted || performance.now() > deadline) return gains;
+        if (grp.some((d) => !((this.adj[x] >> d) & 1))) continue;
+        if (this.tryStar(x, grp, buf)) gains++;
+      }
+    }
+    return gains;
+  }
+
+  private tryStar(x: number, grp: number[], buf: { dist: Float64Array[]; stamp: Int32Array[]; epoch: number }): boolean {
+    const before = this.treeCost();
+    const savedNodes = this.treeList.slice();
+    const savedAdj = savedNodes.map((v) => this.adj[v]);
+    const paths = grp.map((d) => this.walkKeyPath(x, d));
+    let old = 0;
+    for (const p of paths) { old += p.cost; this.setPath(p.nodes, p.dirs, false); }
+    const whole = grp.length === popcount8(this.adj[x]) + grp.length && !this.isAnchorNode(x);
+    for (const v of this.treeList) this.mark[v] = 0;
+    const ends = paths.map((p) => p.nodes[p.nodes.length - 1]);
+    if (!whole) ends.unshift(x);
+    const comps: number[][] = ends.map((e) => {
+      const c = this.component(e, 3);
+      for (const v of c) this.mark[v] = 0;
+      return c;
+    });
+    const restore = (): void => {
+      for (const p of paths) this.setPath(p.nodes, p.dirs, true);
+      this.rebuildTreeList();
+    };
+    if (comps.length > 4) { restore(); return false; }
+    // Node-level distances from every part, bounded by the removed cost.
+    const ep = ++buf.epoch;
+    const touched: number[][] = comps.map(() => []);
+    comps.forEach((c, k) => {
+      for (const v of c) this.mark[v] = 1;
+      this.explore(c, old, buf.dist[k], buf.stamp[k], ep, touched[k]);
+      for (const v of c) this.mark[v] = 0;
+    });
+    let best = Infinity, hub = -1;
+    for (const v of touched[0]) {
+      let sum = buf.dist[0][v];
+      for (let k = 1; k < comps.length && sum < best; k++) sum = buf.stamp[k][v] === ep ? sum + buf.dist[k][v] : Infinity;
+      if (sum < best || (sum === best && v < hub)) { best = sum; hub = v; }
+    }
+    if (!(best < old - 1e-9)) { restore(); return false; }
+    // Reconnect: the part holding the hub first (or the hub alone), then each part to the union.
+    const added: number[] = [];
+    const holder = comps.findIndex((c) => c.includes(hub));
+    const union = new Set<number>(holder >= 0 ? comps[holder] : [hub]);
+    const order = comps.map((_, k) => k).filter((k) => k !== holder);
+    this.targetCost = () => 0;
+    let failed = false;
+    for (const k of order) {
+      for (const v of comps[k]) this.mark[v] = 1;
+      for (const v of union) this.mark[v] = 2;
+      const r = this.search(comps[k], null);
+      for (const v of comps[k]) this.mark[v] = 0;
+      for (const v of union) this.mark[v] = 0;
+      if (r.state < 0) { failed = true; break; }
+      const a = this.addPathRaw(r.state);
+      for (let i = 0; i < a.length; i += 2) added.push(a[i], a[i + 1]);
+      for (const v of comps[k]) union.add(v);
+      let s = r.state;
+      for (;;) { union.add(s >> 3); union.add((s >> 3) - this.off[s & 7]); if (this.pred[s] < 0) break; s = this.pred[s]; }
+    }
+    const undo = (): void => {
+      for (let i = 0; i < added.length; i += 2) {
+        const v = added[i], d = added[i + 1];
+        this.adj[v] = 0;
+        this.adj[v + this.off[d]] = 0;
+      }
+      for (const v of this.treeList) this.adj[v] = 0;
+      savedNodes.forEach((v, i) => { this.adj[v] = savedAdj[i]; });
+      this.rebuildTreeList();
+    };
+    if (failed) { undo(); return false; }
+    this.rebuildTreeList();
+    this.prune();
+    const after = this.treeCost();
+    if (after < before - 1e-9) return true;
+    undo();
+    return false;
+  }
+
+  /** Re-lists the tree from the root node (the tree is connected) and marks it as source. */
+  private rebuildTreeList(): void {
+    for (const v of this.treeList) this.mark[v] = 0;
+    const list = [this.rootNode];
+    this.mark[this.rootNode] = 1;
+    for (let i = 0; i < list.length; i++) {
+      const v = list[i];
+      const bits = this.adj[v];
+      for (let d = 0; d < 8; d++) {
+        if (!((bits >> d) & 1)) continue;
+        const u = v + this.off[d];
+        if (this.mark[u] !== 1) { this.mark[u] = 1; list.push(u); }
+      }
+    }
+    this.treeList = list;
+  }
+
+  /** Removes non-terminal leaves. */
+  private prune(): void {
+    const stack = this.treeList.filter((v) => popcount8(this.adj[v]) === 1 && !this.isAnchorNode(v));
+    while (stack.length) {
+      const v = stack.pop()!;
+      const bits = this.adj[v];
+      if (popcount8(bits) !== 1 || this.isAnchorNode(v)) continue;
+      let d = 0;
+      while (!((bits >> d) & 1)) d++;
+      const u = v + this.off[d];
+      this.adj[v] = 0;
+      this.adj[u] &= ~(1 << OPP(d));
+      if (popcount8(this.adj[u]) === 1 && !this.isAnchorNode(u)) stack.push(u);
+    }
+    this.rebuildTreeList();
+  }
+
+  /** Solves for the anchors in `members` (all in one grid component). */
+  solve(members: readonly number[], opts: SolveOptions): SiteTree {
+    const t0 = performance.now();
+    const deadline = t0 + opts.timeBudgetMs;
+    if (members.length === 0) return { adj: new Uint8Array(this.g.n), nodes: new Int32Array(0), cost: 0, joined: [], rounds: 0 };
+    const rand = rng(opts.seed);
+    const order = members.slice();
+    // Root order: the given first member, then a seeded shuffle of the rest.
+    for (let i = order.length - 1; i > 1; i--) {
+      const j = 1 + Math.floor(rand() * i);
+      [order[i], order[j]] = [order[j], order[i]];
+    }
+    const restarts = Math.min(order.length, opts.maxRestarts ?? 4);
+    let bestAdj: Uint8Array | null = null;
+    let bestCost = Infinity;
+    let rounds = 0;
+    for (let r = 0; r < restarts; r++) {
+      const done = this.construct(order[r], members, deadline, opts, r === 0);
+      if (!done) break;
+      this.prune();
+      const dl = r === 0 ? Math.max(deadline, performance.now() + 0) : deadline;
+      for (let round = 0; round < 4; round++) {
+        const a = this.improve(dl, opts.signal);
+        this.prune();
+        const b = this.starExchange(dl, opts.signal);
+        this.prune();
+        if (a + b === 0 || opts.signal?.aborted || performance.now() > dl) break;
+      }
+      const c = this.treeCost();
+      rounds++;
+      if (c < bestCost - 1e-9) { bestCost = c; bestAdj = this.adj.slice(); }
+      opts.onProgress?.('route', 0.6 + (0.4 * (r + 1)) / restarts);
+      if (opts.signal?.aborted || performance.now() > deadline) break;
+    }
+    const adj = bestAdj!;
+    const nodes: number[] = [];
+    for (let v = 0; v < adj.length; v++) if (adj[v] !== 0) nodes.push(v);
+    if (nodes.length === 0) nodes.push(this.anchors[members[0]].node);
+    return { adj, nodes: Int32Array.from(nodes), cost: bestCost, joined: members.slice(), rounds };
+  }
+}
