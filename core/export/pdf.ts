@@ -6,6 +6,7 @@
 import PDFDocument from 'pdfkit';
 import type { TakeOff } from '../takeoff/takeoff';
 import type { TrenchNetwork } from '../network/trenchNetwork';
+import type { Polygon, Site } from '../site/site';
 import { NOTICE_LINES, NOTICE_TITLE } from '../notice';
 import type { ScheduleMeta } from './scheduleTable';
 
@@ -19,7 +20,12 @@ export function pdfText(s: string): string {
 
 const fmt = (v: number, d = 2): string => v.toLocaleString('en-US', { minimumFractionDigits: d, maximumFractionDigits: d });
 
-export async function writeReportPdf(t: TakeOff, net: TrenchNetwork, meta: ScheduleMeta): Promise<Uint8Array> {
+export interface ReportOptions {
+  /** Draw buildings, pavement and keep-outs under the network (same local frame as the network). */
+  site?: Pick<Site, 'buildings' | 'pavements' | 'keepOuts'>;
+}
+
+export async function writeReportPdf(t: TakeOff, net: TrenchNetwork, meta: ScheduleMeta, options: ReportOptions = {}): Promise<Uint8Array> {
   const when = new Date(meta.date);
   const fixed = Number.isNaN(when.getTime()) ? new Date(0) : when;
   const doc = new PDFDocument({
@@ -52,7 +58,7 @@ export async function writeReportPdf(t: TakeOff, net: TrenchNetwork, meta: Sched
   // --- plan --------------------------------------------------------------------------------
   const planTop = noticeBottom + 10;
   const planH = 300;
-  drawPlan(doc, t, net, left, planTop, width, planH);
+  drawPlan(doc, t, net, options.site, left, planTop, width, planH);
   doc.y = planTop + planH + 8;
   doc.x = left;
 
@@ -152,13 +158,25 @@ function row(doc: PDFKit.PDFDocument, cells: string[], widths: number[], align: 
 }
 
 /** The network as vector lines: a grey trench band, one thin offset line per utility carried. */
-function drawPlan(doc: PDFKit.PDFDocument, t: TakeOff, net: TrenchNetwork, x0: number, y0: number, w: number, h: number): void {
+function drawPlan(doc: PDFKit.PDFDocument, t: TakeOff, net: TrenchNetwork, site: ReportOptions['site'], x0: number, y0: number, w: number, h: number): void {
   doc.lineWidth(0.5).strokeColor('#888888').rect(x0, y0, w, h).stroke();
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const s of net.segments) {
     for (let i = 0; i < s.points.length; i += 2) {
       minX = Math.min(minX, s.points[i]); maxX = Math.max(maxX, s.points[i]);
       minY = Math.min(minY, s.points[i + 1]); maxY = Math.max(maxY, s.points[i + 1]);
+    }
+  }
+  const context: { poly: Polygon; fill: string; stroke: string }[] = [
+    ...(site?.pavements ?? []).map((poly) => ({ poly, fill: '#EFEFEF', stroke: '#B0B0B0' })),
+    ...(site?.keepOuts ?? []).map((poly) => ({ poly, fill: '#E3F1E3', stroke: '#7FAF7F' })),
+    ...(site?.buildings ?? []).map((poly) => ({ poly, fill: '#D9D9D9', stroke: '#606060' })),
+  ];
+  for (const c of context) {
+    const r = c.poly.outer;
+    for (let i = 0; i < r.length; i += 2) {
+      minX = Math.min(minX, r[i]); maxX = Math.max(maxX, r[i]);
+      minY = Math.min(minY, r[i + 1]); maxY = Math.max(maxY, r[i + 1]);
     }
   }
   const legendH = 16;
@@ -173,6 +191,19 @@ function drawPlan(doc: PDFKit.PDFDocument, t: TakeOff, net: TrenchNetwork, x0: n
   const px = (x: number): number => ox + (x - minX) * scale;
   const py = (y: number): number => oy + (maxY - y) * scale;
   const colour = new Map(t.utilities.map((u) => [u.utility, u.color]));
+  doc.save();
+  doc.rect(x0, y0, w, h).clip();
+  for (const c of context) {
+    for (const ring of [c.poly.outer, ...c.poly.holes]) {
+      for (let i = 0; i < ring.length; i += 2) {
+        if (i === 0) doc.moveTo(px(ring[i]), py(ring[i + 1]));
+        else doc.lineTo(px(ring[i]), py(ring[i + 1]));
+      }
+      doc.closePath();
+    }
+    doc.lineWidth(0.4).fillAndStroke(c.fill, c.stroke, 'even-odd');
+  }
+  doc.restore();
   doc.lineCap('round').lineJoin('round');
   for (const s of net.segments) {
     polyline(doc, s.points, px, py, 0);
