@@ -11,8 +11,10 @@ import { fitViewport, type Viewport } from './viewport';
 
 export interface SiteCanvas {
   readonly canvas: HTMLCanvasElement;
-  /** Overlay containers in drawing units relative to the viewport origin (y up). */
-  readonly overlays: { network: Container; points: Container; cue: Container };
+  /** Screen-space layer above the drawing (points, network, cues), redrawn by its owners before a frame. */
+  readonly overlay: Container;
+  /** Runs before every frame with the current view (overlays redraw when the view changed). */
+  onBeforeRender(cb: (vp: Viewport) => void): void;
   showDrawing(drawing: Drawing | null, roles: Record<string, LayerRole>): { skippedTexts: number; segmentCount: number };
   setRoles(roles: Record<string, LayerRole>, hidden?: ReadonlySet<string>): void;
   viewport(): Viewport;
@@ -47,12 +49,9 @@ export async function createSiteCanvas(host: HTMLElement): Promise<SiteCanvas> {
   host.appendChild(app.canvas);
 
   const world = new Container({ label: 'world' });
-  const overlays = {
-    network: new Container({ label: 'network' }),
-    points: new Container({ label: 'points' }),
-    cue: new Container({ label: 'cue' }),
-  };
-  app.stage.addChild(world);
+  const overlay = new Container({ label: 'overlay' });
+  app.stage.addChild(world, overlay);
+  const beforeRender: ((vp: Viewport) => void)[] = [];
   let drawingGraphics: DrawingGraphics | null = null;
   let ext: Extents | null = null;
   let vp: Viewport = { scale: 1, tx: 0, ty: 0, ox: 0, oy: 0 };
@@ -68,6 +67,7 @@ export async function createSiteCanvas(host: HTMLElement): Promise<SiteCanvas> {
   const renderNow = (): void => {
     frameRequested = false;
     applyViewport();
+    for (const cb of beforeRender) cb(vp);
     const t0 = performance.now();
     app.render();
     const ms = performance.now() - t0;
@@ -93,7 +93,8 @@ export async function createSiteCanvas(host: HTMLElement): Promise<SiteCanvas> {
 
   const canvas: SiteCanvas = {
     canvas: app.canvas,
-    overlays,
+    overlay,
+    onBeforeRender(cb) { beforeRender.push(cb); },
     showDrawing(drawing, roles) {
       world.removeChildren();
       if (drawingGraphics) drawingGraphics.root.destroy({ children: true });
@@ -104,7 +105,7 @@ export async function createSiteCanvas(host: HTMLElement): Promise<SiteCanvas> {
       vp = fitViewport(ext, size().width, size().height);
       drawingGraphics = buildDrawingGraphics(drawing, vp.ox, vp.oy);
       applyRoles(drawingGraphics, roles, new Set());
-      world.addChild(drawingGraphics.root, overlays.network, overlays.points, overlays.cue);
+      world.addChild(drawingGraphics.root);
       requestRender();
       return { skippedTexts: drawingGraphics.skippedTexts, segmentCount: drawingGraphics.segmentCount };
     },

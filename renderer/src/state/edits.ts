@@ -3,6 +3,7 @@
 
 import type { LayerRole, PointInput } from '../../../core/site/site';
 import type { RouteSettings } from '../../../core/settings';
+import type { LengthUnit } from '../../../core/units';
 
 export interface ProjectState {
   readonly roles: Readonly<Record<string, LayerRole>>;
@@ -10,6 +11,8 @@ export interface ProjectState {
   readonly route: Readonly<RouteSettings>;
   /** Utility keys switched on for routing (a subset of the settings' utilities). */
   readonly utilitiesOn: readonly string[];
+  /** Routing unit chosen by the user (null: from the drawing's $INSUNITS). */
+  readonly units: LengthUnit | null;
 }
 
 export type Edit =
@@ -19,7 +22,8 @@ export type Edit =
   | { kind: 'remove-point'; id: string }
   | { kind: 'replace-points'; points: PointInput[] }
   | { kind: 'set-route'; key: keyof RouteSettings; value: RouteSettings[keyof RouteSettings] }
-  | { kind: 'set-utilities-on'; keys: string[] };
+  | { kind: 'set-utilities-on'; keys: string[] }
+  | { kind: 'set-units'; units: LengthUnit | null };
 
 export interface Diff {
   readonly label: string;
@@ -31,15 +35,16 @@ export interface Diff {
   };
   readonly route: readonly { key: keyof RouteSettings; before: unknown; after: unknown }[];
   readonly utilitiesOn: { before: readonly string[]; after: readonly string[] } | null;
+  readonly units: { before: LengthUnit | null; after: LengthUnit | null } | null;
 }
 
 const emptyDiff = (label: string): Diff => ({
-  label, roles: [], points: { added: [], removed: [], updated: [] }, route: [], utilitiesOn: null,
+  label, roles: [], points: { added: [], removed: [], updated: [] }, route: [], utilitiesOn: null, units: null,
 });
 
 export function isEmptyDiff(d: Diff): boolean {
   return d.roles.length === 0 && d.points.added.length === 0 && d.points.removed.length === 0 &&
-    d.points.updated.length === 0 && d.route.length === 0 && d.utilitiesOn === null;
+    d.points.updated.length === 0 && d.route.length === 0 && d.utilitiesOn === null && d.units === null;
 }
 
 /** The diff an edit would make to `state` (empty when it changes nothing). */
@@ -81,6 +86,9 @@ export function diffFor(state: ProjectState, edit: Edit): Diff {
       if (after.join('\n') === state.utilitiesOn.join('\n')) return emptyDiff('');
       return { ...emptyDiff('Utilities'), utilitiesOn: { before: state.utilitiesOn, after } };
     }
+    case 'set-units':
+      if (state.units === edit.units) return emptyDiff('');
+      return { ...emptyDiff(`Units ${edit.units ?? 'from drawing'}`), units: { before: state.units, after: edit.units } };
   }
 }
 
@@ -111,7 +119,8 @@ export function applyDiff(state: ProjectState, d: Diff): ProjectState {
     route = Object.freeze(next) as unknown as RouteSettings;
   }
   const utilitiesOn = d.utilitiesOn ? Object.freeze([...d.utilitiesOn.after]) : state.utilitiesOn;
-  return Object.freeze({ roles, points, route, utilitiesOn });
+  const units = d.units ? d.units.after : state.units;
+  return Object.freeze({ roles, points, route, utilitiesOn, units });
 }
 
 export function invertDiff(d: Diff): Diff {
@@ -125,6 +134,7 @@ export function invertDiff(d: Diff): Diff {
     },
     route: d.route.map((r) => ({ key: r.key, before: r.after, after: r.before })),
     utilitiesOn: d.utilitiesOn ? { before: d.utilitiesOn.after, after: d.utilitiesOn.before } : null,
+    units: d.units ? { before: d.units.after, after: d.units.before } : null,
   };
 }
 
