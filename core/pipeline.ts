@@ -150,11 +150,18 @@ export async function runPipeline(input: PipelineInput, opts: PipelineOptions = 
   const placed = placeTerminals(site, pts.value, { snapTolerance: fromMetres(settings.route.snapToleranceM, site.units) });
   for (const p of placed.problems) warnings.push(`${input.services.name}: ${p.message}`);
   const terminals = placed.terminals;
+  const outside = terminals.filter((t) => !insideBox(site.boundary, t.x, t.y));
+  const inside = (role: string): boolean => terminals.some((t) => t.role === role && !outside.includes(t));
+  if (!inside('connection') || !inside('service')) {
+    const ex = drawing.header.extents;
+    return fail('place', input.services.name, `${input.services.name}: no ${inside('connection') ? 'service point' : 'point of connection'} lies on the site (drawing extents x ${ex.minX.toFixed(1)}…${ex.maxX.toFixed(1)}, y ${ex.minY.toFixed(1)}…${ex.maxY.toFixed(1)}); give the coordinates in the drawing's units and frame`);
+  }
+  for (const t of outside) warnings.push(`${input.services.name}: point ${t.id} lies outside the site; it cannot be connected`);
   end('place');
 
   begin('route');
   const net = routeSite(site, terminals, settings.route, {
-    onProgress: (_s, f) => { progress('route', Math.min(0.999, f)); check(); },
+    onProgress: (_s, f) => { progress('route', Math.min(0.999, Math.max(0.001, f))); check(); },
     signal: opts.signal,
   });
   check();
@@ -252,4 +259,14 @@ export function countBends(net: TrenchNetwork): number {
     if (deg > MIN_DEG) n++;
   }
   return n;
+}
+
+/** Inside the bounding box of a ring (flat x,y pairs). */
+function insideBox(ring: Float64Array, x: number, y: number): boolean {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (let i = 0; i < ring.length; i += 2) {
+    minX = Math.min(minX, ring[i]); maxX = Math.max(maxX, ring[i]);
+    minY = Math.min(minY, ring[i + 1]); maxY = Math.max(maxY, ring[i + 1]);
+  }
+  return x >= minX && x <= maxX && y >= minY && y <= maxY;
 }
