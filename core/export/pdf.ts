@@ -4,11 +4,19 @@
 // Every page carries the notice title in its footer; page 1 carries the whole notice.
 
 import PDFDocument from 'pdfkit';
+import * as pdfkitModule from 'pdfkit';
+import Helvetica from 'pdfkit/standard-fonts/Helvetica';
+import HelveticaBold from 'pdfkit/standard-fonts/HelveticaBold';
 import type { TakeOff } from '../takeoff/takeoff';
 import type { TrenchNetwork } from '../network/trenchNetwork';
 import type { Polygon, Site } from '../site/site';
 import { NOTICE_LINES, NOTICE_TITLE } from '../notice';
 import type { ScheduleMeta } from './scheduleTable';
+
+// pdfkit's browser build needs the standard-font metrics registered; its Node build loads them
+// itself and has no registerStdFonts export.
+const registerStdFonts = (pdfkitModule as unknown as { registerStdFonts?: (...fonts: unknown[]) => void }).registerStdFonts;
+if (typeof registerStdFonts === 'function') registerStdFonts(Helvetica, HelveticaBold);
 
 const PAGE = { w: 612, h: 792, margin: 40 }; // US Letter, points
 const FOOT = 30;
