@@ -11,7 +11,7 @@ import { err, ok, type Result } from '../result';
 import { resolveFrame, toDrawing, toLocal } from './siteFrame';
 import { stitchRings, type OpenChain } from './stitchRings';
 import { assemblePolygons, polygonArea, repairRing, type LayeredRing } from './polygonSet';
-import { boxOf, selfIntersection, signedArea } from './rings';
+import { selfIntersection, signedArea } from './rings';
 import { suggestRoles } from './suggestRoles';
 
 export interface BuildSiteOptions {
@@ -44,10 +44,14 @@ export function buildSite(drawing: Drawing, opts: BuildSiteOptions = {}): Result
   const ext = { minX: Infinity, minY: Infinity, maxX: -Infinity, maxY: -Infinity };
   for (const e of drawing.entities) {
     if ((roleOf[e.layer] ?? 'ignore') === 'ignore') continue;
-    if (e.kind === 'polyline') {
-      const b = boxOf(e.points);
-      ext.minX = Math.min(ext.minX, b.minX); ext.minY = Math.min(ext.minY, b.minY);
-      ext.maxX = Math.max(ext.maxX, b.maxX); ext.maxY = Math.max(ext.maxY, b.maxY);
+    if (e.kind !== 'polyline') continue;
+    const p = e.points;
+    for (let i = 0; i < p.length; i += 2) {
+      const x = p[i], y = p[i + 1];
+      if (x < ext.minX) ext.minX = x;
+      if (x > ext.maxX) ext.maxX = x;
+      if (y < ext.minY) ext.minY = y;
+      if (y > ext.maxY) ext.maxY = y;
     }
   }
   const usedExt = Number.isFinite(ext.minX) ? ext : drawing.header.extents;
@@ -84,9 +88,12 @@ export function buildSite(drawing: Drawing, opts: BuildSiteOptions = {}): Result
     // stitch per layer so pieces on different layers never join
     const open: OpenChain[] = [];
     const openLayers = new Map<OpenChain, string>();
-    const layers = [...new Set(pieceLayer)];
-    for (const layer of layers) {
-      const mine = pieces.filter((_, i) => pieceLayer[i] === layer);
+    const perLayer = new Map<string, Float64Array[]>();
+    for (let i = 0; i < pieces.length; i++) {
+      const l = perLayer.get(pieceLayer[i]);
+      if (l) l.push(pieces[i]); else perLayer.set(pieceLayer[i], [pieces[i]]);
+    }
+    for (const [layer, mine] of perLayer) {
       const st = stitchRings(mine, tol);
       for (const r of st.rings) closed.push({ ring: r, layer });
       for (const o of st.open) { open.push(o); openLayers.set(o, layer); }

@@ -14,17 +14,19 @@ const CLIP_SCALE = 1e4;
 
 export interface LayeredRing { ring: Ring; layer: string }
 
-const toPath = (r: Ring): { X: number; Y: number }[] => {
+// Paths are taken relative to an offset (the cluster's lower-left) so clipper stays in its fast
+// 53-bit range (|coordinate| < 4.7e7 units, i.e. clusters up to 4.7 km wide at 0.1 mm).
+const toPath = (r: Ring, ox = 0, oy = 0): { X: number; Y: number }[] => {
   const out = new Array(r.length / 2);
-  for (let i = 0; i < r.length; i += 2) out[i / 2] = { X: Math.round(r[i] * CLIP_SCALE), Y: Math.round(r[i + 1] * CLIP_SCALE) };
+  for (let i = 0; i < r.length; i += 2) out[i / 2] = { X: Math.round((r[i] - ox) * CLIP_SCALE), Y: Math.round((r[i + 1] - oy) * CLIP_SCALE) };
   return out;
 };
 
-const fromPath = (p: { X: number; Y: number }[]): Ring => {
+const fromPath = (p: { X: number; Y: number }[], ox = 0, oy = 0): Ring => {
   const out = new Float64Array(p.length * 2);
   for (let i = 0; i < p.length; i++) {
-    out[2 * i] = p[i].X / CLIP_SCALE;
-    out[2 * i + 1] = p[i].Y / CLIP_SCALE;
+    out[2 * i] = p[i].X / CLIP_SCALE + ox;
+    out[2 * i + 1] = p[i].Y / CLIP_SCALE + oy;
   }
   return out;
 };
@@ -34,8 +36,9 @@ const cw = (r: Ring): Ring => (signedArea(r) > 0 ? reversed(r) : r);
 
 /** Split a self-intersecting ring into simple rings (nonzero fill), dropping pieces of area <= minArea. */
 export function repairRing(r: Ring, minArea: number): Ring[] {
-  const parts = ClipperLib.Clipper.SimplifyPolygon(toPath(r), ClipperLib.PolyFillType.pftNonZero) as { X: number; Y: number }[][];
-  return parts.map(fromPath).filter((p) => Math.abs(signedArea(p)) > minArea).map(ccw);
+  const b = boxOf(r);
+  const parts = ClipperLib.Clipper.SimplifyPolygon(toPath(r, b.minX, b.minY), ClipperLib.PolyFillType.pftNonZero) as { X: number; Y: number }[][];
+  return parts.map((p) => fromPath(p, b.minX, b.minY)).filter((p) => Math.abs(signedArea(p)) > minArea).map(ccw);
 }
 
 /** Assemble polygons from rings; deterministic (input order decides ties). */
@@ -43,24 +46,16 @@ export function assemblePolygons(rings: LayeredRing[]): Polygon[] {
   const n = rings.length;
   const boxes: Box[] = rings.map((r) => boxOf(r.ring));
   const areas = rings.map((r) => Math.abs(signedArea(r.ring)));
-  // clusters of rings whose boxes overlap (union-find over a sweep on min x)
+  // clusters of rings whose boxes overlap (union-find over a uniform grid of boxes)
   const parent = Int32Array.from({ length: n }, (_, i) => i);
   const find = (i: number): number => {
     while (parent[i] !== i) { parent[i] = parent[parent[i]]; i = parent[i]; }
     return i;
   };
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => boxes[a].minX - boxes[b].minX || a - b);
-  for (let oi = 0; oi < n; oi++) {
-    const a = order[oi];
-    for (let oj = oi + 1; oj < n; oj++) {
-      const b = order[oj];
-      if (boxes[b].minX > boxes[a].maxX) break;
-      if (boxesOverlap(boxes[a], boxes[b])) {
-        const ra = find(a), rb = find(b);
-        if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
-      }
-    }
-  }
+  overlappingPairs(boxes, (a, b) => {
+    const ra = find(a), rb = find(b);
+    if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
+  });
   const clusters = new Map<number, number[]>();
   for (let i = 0; i < n; i++) {
     const r = find(i);
@@ -82,6 +77,8 @@ export function assemblePolygons(rings: LayeredRing[]): Polygon[] {
 function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], areas: number[]): Polygon[] {
   // nesting depth: how many other rings of the cluster contain this one
   const byArea = [...members].sort((a, b) => areas[b] - areas[a] || a - b);
+  let ox = Infinity, oy = Infinity;
+  for (const i of members) { ox = Math.min(ox, boxes[i].minX); oy = Math.min(oy, boxes[i].minY); }
   const depth = new Map<number, number>();
   const layers = new Set<string>();
   const paths: { X: number; Y: number }[][] = [];
@@ -94,7 +91,7 @@ function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], are
       if (areas[j] > areas[i] && boxContains(boxes[j], boxes[i]) && ringInside(rings[i].ring, rings[j].ring)) d++;
     }
     depth.set(i, d);
-    paths.push(toPath(d % 2 === 0 ? ccw(rings[i].ring) : cw(rings[i].ring)));
+    paths.push(toPath(d % 2 === 0 ? ccw(rings[i].ring) : cw(rings[i].ring), ox, oy));
   }
   const c = new ClipperLib.Clipper();
   c.AddPaths(paths, ClipperLib.PolyType.ptSubject, true);
@@ -106,14 +103,72 @@ function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], are
     for (const outerNode of node.Childs()) {
       const holes: Ring[] = [];
       for (const holeNode of outerNode.Childs()) {
-        holes.push(cw(fromPath(holeNode.Contour())));
+        holes.push(cw(fromPath(holeNode.Contour(), ox, oy)));
         visit(holeNode); // islands inside a courtyard
       }
-      out.push({ outer: ccw(fromPath(outerNode.Contour())), holes, layer });
+      out.push({ outer: ccw(fromPath(outerNode.Contour(), ox, oy)), holes, layer });
     }
   };
   visit(tree);
   return out;
+}
+
+/**
+ * Calls back once for every pair of overlapping boxes. Boxes go into the cells of a uniform grid
+ * (cell = twice the median box size); a pair is tested only in the cell holding the lower-left
+ * corner of the two boxes' intersection, so it is reported once. Near-linear for footprints.
+ */
+export function overlappingPairs(boxes: Box[], onPair: (a: number, b: number) => void): void {
+  const n = boxes.length;
+  if (n < 2) return;
+  let gx = Infinity, gy = Infinity, gX = -Infinity, gY = -Infinity;
+  const sizes = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const b = boxes[i];
+    gx = Math.min(gx, b.minX); gy = Math.min(gy, b.minY); gX = Math.max(gX, b.maxX); gY = Math.max(gY, b.maxY);
+    sizes[i] = Math.max(b.maxX - b.minX, b.maxY - b.minY);
+  }
+  sizes.sort();
+  const span = Math.max(gX - gx, gY - gy, 1e-9);
+  const cell = Math.max(2 * sizes[n >> 1], span / 65536, 1e-9);
+  const MAX_CELLS_PER_BOX = 1024;
+  const grid = new Map<number, number[]>();
+  const big: number[] = []; // boxes covering too many cells: tested against every box
+  const cx = (x: number): number => Math.floor((x - gx) / cell);
+  const cy = (y: number): number => Math.floor((y - gy) / cell);
+  for (let i = 0; i < n; i++) {
+    const b = boxes[i];
+    const x0 = cx(b.minX), x1 = cx(b.maxX), y0 = cy(b.minY), y1 = cy(b.maxY);
+    if ((x1 - x0 + 1) * (y1 - y0 + 1) > MAX_CELLS_PER_BOX) { big.push(i); continue; }
+    for (let x = x0; x <= x1; x++) {
+      for (let y = y0; y <= y1; y++) {
+        const k = x * 131072 + y;
+        const list = grid.get(k);
+        if (list) list.push(i); else grid.set(k, [i]);
+      }
+    }
+  }
+  for (const [k, list] of grid) {
+    if (list.length < 2) continue;
+    const kx = Math.floor(k / 131072), ky = k - kx * 131072;
+    for (let p = 0; p < list.length; p++) {
+      const a = boxes[list[p]];
+      for (let q = p + 1; q < list.length; q++) {
+        const b = boxes[list[q]];
+        if (!boxesOverlap(a, b)) continue;
+        if (cx(Math.max(a.minX, b.minX)) !== kx || cy(Math.max(a.minY, b.minY)) !== ky) continue;
+        onPair(list[p], list[q]);
+      }
+    }
+  }
+  const isBig = new Uint8Array(n);
+  for (const i of big) isBig[i] = 1;
+  for (const i of big) {
+    for (let j = 0; j < n; j++) {
+      if (j === i || (isBig[j] && j < i)) continue;
+      if (boxesOverlap(boxes[i], boxes[j])) onPair(Math.min(i, j), Math.max(i, j));
+    }
+  }
 }
 
 /** Every vertex of `inner` inside `outer` (even-odd); rings that only touch are not nested. */

@@ -66,6 +66,7 @@ function orient(ax: number, ay: number, bx: number, by: number, cx: number, cy: 
 export function selfIntersection(r: ArrayLike<number>): { x: number; y: number } | null {
   const n = r.length / 2;
   if (n < 4) return null;
+  if (n <= 24) return selfIntersectionSmall(r, n);
   const order = new Int32Array(n);
   const lo = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -77,30 +78,52 @@ export function selfIntersection(r: ArrayLike<number>): { x: number; y: number }
   for (let oi = 0; oi < n; oi++) {
     const i = order[oi];
     const i2 = (i + 1) % n;
-    const ax = r[2 * i], ay = r[2 * i + 1], bx = r[2 * i2], by = r[2 * i2 + 1];
+    const ax = r[2 * i], bx = r[2 * i2];
     const hiX = Math.max(ax, bx);
     for (let oj = oi + 1; oj < n; oj++) {
       const j = order[oj];
       if (lo[j] > hiX) break;
       if (j === i2 || i === (j + 1) % n) continue; // adjacent edges share a vertex
-      const j2 = (j + 1) % n;
-      const cx = r[2 * j], cy = r[2 * j + 1], dx = r[2 * j2], dy = r[2 * j2 + 1];
-      if (Math.max(cy, dy) < Math.min(ay, by) || Math.min(cy, dy) > Math.max(ay, by)) continue;
-      const d1 = orient(ax, ay, bx, by, cx, cy);
-      const d2 = orient(ax, ay, bx, by, dx, dy);
-      const d3 = orient(cx, cy, dx, dy, ax, ay);
-      const d4 = orient(cx, cy, dx, dy, bx, by);
-      if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) {
-        const t = d3 / (d3 - d4);
-        return { x: ax + (bx - ax) * t, y: ay + (by - ay) * t };
-      }
-      // touching: an endpoint of one edge on the other (collinear overlap included)
-      if (d1 === 0 && onSeg(ax, ay, bx, by, cx, cy)) return { x: cx, y: cy };
-      if (d2 === 0 && onSeg(ax, ay, bx, by, dx, dy)) return { x: dx, y: dy };
-      if (d3 === 0 && onSeg(cx, cy, dx, dy, ax, ay)) return { x: ax, y: ay };
-      if (d4 === 0 && onSeg(cx, cy, dx, dy, bx, by)) return { x: bx, y: by };
+      const hit = edgesMeet(r, i, i2, j, (j + 1) % n);
+      if (hit) return hit;
     }
   }
+  return null;
+}
+
+/** All pairs, no allocation: faster for the few-vertex outlines most footprints are. */
+function selfIntersectionSmall(r: ArrayLike<number>, n: number): { x: number; y: number } | null {
+  for (let i = 0; i < n; i++) {
+    const i2 = i + 1 === n ? 0 : i + 1;
+    for (let j = i + 2; j < n; j++) {
+      const j2 = j + 1 === n ? 0 : j + 1;
+      if (j2 === i) continue; // adjacent through the closing edge
+      const hit = edgesMeet(r, i, i2, j, j2);
+      if (hit) return hit;
+    }
+  }
+  return null;
+}
+
+/** Where edge (i,i2) crosses or touches edge (j,j2), or null. */
+function edgesMeet(r: ArrayLike<number>, i: number, i2: number, j: number, j2: number): { x: number; y: number } | null {
+  const ax = r[2 * i], ay = r[2 * i + 1], bx = r[2 * i2], by = r[2 * i2 + 1];
+  const cx = r[2 * j], cy = r[2 * j + 1], dx = r[2 * j2], dy = r[2 * j2 + 1];
+  if (Math.max(cx, dx) < Math.min(ax, bx) || Math.min(cx, dx) > Math.max(ax, bx)) return null;
+  if (Math.max(cy, dy) < Math.min(ay, by) || Math.min(cy, dy) > Math.max(ay, by)) return null;
+  const d1 = orient(ax, ay, bx, by, cx, cy);
+  const d2 = orient(ax, ay, bx, by, dx, dy);
+  const d3 = orient(cx, cy, dx, dy, ax, ay);
+  const d4 = orient(cx, cy, dx, dy, bx, by);
+  if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) {
+    const t = d3 / (d3 - d4);
+    return { x: ax + (bx - ax) * t, y: ay + (by - ay) * t };
+  }
+  // touching: an endpoint of one edge on the other (collinear overlap included)
+  if (d1 === 0 && onSeg(ax, ay, bx, by, cx, cy)) return { x: cx, y: cy };
+  if (d2 === 0 && onSeg(ax, ay, bx, by, dx, dy)) return { x: dx, y: dy };
+  if (d3 === 0 && onSeg(cx, cy, dx, dy, ax, ay)) return { x: ax, y: ay };
+  if (d4 === 0 && onSeg(cx, cy, dx, dy, bx, by)) return { x: bx, y: by };
   return null;
 }
 

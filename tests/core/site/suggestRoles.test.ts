@@ -2,14 +2,14 @@
 // EX-WATER are widespread; there is no single standard list) and from geometry.
 import { describe, expect, it } from 'vitest';
 import { layerWords, suggestRoles } from '../../../core/site/suggestRoles';
-import type { Drawing } from '../../../core/dxf/drawing';
+import type { Drawing, DrawingEntity } from '../../../core/dxf/drawing';
 import { readFixture } from '../dxf/fixtures';
 
 function drawingWithLayers(names: string[], closedArea?: Record<string, number>): Drawing {
   return {
     header: { version: 'AC1015', insUnits: 6, extents: { minX: 0, minY: 0, maxX: 100, maxY: 100 } },
     layers: names.map((name) => ({ name, color: 7, on: true, frozen: false })),
-    entities: names.flatMap((layer) => {
+    entities: names.flatMap((layer): DrawingEntity[] => {
       const s = Math.sqrt(closedArea?.[layer] ?? 0);
       if (!s) return [{ kind: 'polyline' as const, layer, source: 'LINE' as const, points: Float64Array.from([0, 0, 1, 1]), closed: false }];
       return [{ kind: 'polyline' as const, layer, source: 'LWPOLYLINE' as const, points: Float64Array.from([0, 0, s, 0, s, s, 0, s]), closed: true }];
