@@ -47,8 +47,8 @@ export function graphFromTree(g: RoutingGrid, adj: Uint8Array, treeNodes: Int32A
     const qIsG = Math.hypot(a.qx - gx, a.qy - gy) < 1e-9;
     if (qIsP || qIsG) {
       let gv = vertexOf.get(a.node);
-      if (gv === undefined) { gv = sg.addVertex(gx, gy, 'bend'); vertexOf.set(a.node, gv); }
-      sg.addRun(p, gv, [a.px, a.py, gx, gy], true);
+      if (gv === undefined) { gv = sg.addVertex(gx, gy, a.stub ? 'bend' : 'end'); vertexOf.set(a.node, gv); }
+      sg.addRun(p, gv, [a.px, a.py, gx, gy], a.stub);
       continue;
     }
     const joint = sg.addVertex(a.qx, a.qy, 'bend');

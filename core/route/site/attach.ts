@@ -22,6 +22,8 @@ export interface Anchor {
   /** Unit direction of travel from G into the link/stub (0,0 when any direction is free). */
   ax: number;
   ay: number;
+  /** True when P→Q is a stub (exempt from the clearance); false when P→G is ordinary trench. */
+  stub: boolean;
 }
 
 export type AttachResult = { ok: true; anchor: Anchor } | { ok: false; reason: string };
@@ -69,7 +71,7 @@ export function attachTerminal(site: Site, g: RoutingGrid, t: Terminal, term: nu
       if (!linked && (g.obstacles.inside(qx, qy))) continue;
       const lx = linked ? qx - gx : -t.nx, ly = linked ? qy - gy : -t.ny;
       const l = Math.hypot(lx, ly);
-      return { ok: true, anchor: { term, px: t.x, py: t.y, qx: linked ? qx : gx, qy: linked ? qy : gy, node: k.v, ax: lx / l, ay: ly / l } };
+      return { ok: true, anchor: { term, px: t.x, py: t.y, qx: linked ? qx : gx, qy: linked ? qy : gy, node: k.v, ax: lx / l, ay: ly / l, stub: true } };
     }
     return { ok: false, reason: `no free grid node beyond the ${c} ${site.units} clearance in front of the wall at (${t.x.toFixed(2)}, ${t.y.toFixed(2)}); the opening may be narrower than twice the clearance` };
   }
@@ -81,7 +83,7 @@ export function attachTerminal(site: Site, g: RoutingGrid, t: Terminal, term: nu
   for (const k of cand) {
     const gx = nodeX(g, k.v), gy = nodeY(g, k.v);
     if (pointFree && !segmentClear(g, t.x, t.y, gx, gy)) continue;
-    return { ok: true, anchor: { term, px: t.x, py: t.y, qx: t.x, qy: t.y, node: k.v, ax: 0, ay: 0 } };
+    return { ok: true, anchor: { term, px: t.x, py: t.y, qx: t.x, qy: t.y, node: k.v, ax: 0, ay: 0, stub: !pointFree } };
   }
   return { ok: false, reason: `no free grid node within ${reach.toFixed(2)} ${site.units} (enclosed by obstacles or outside the site boundary)` };
 }

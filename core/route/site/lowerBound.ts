@@ -10,7 +10,7 @@
 //     the MST over Voronoi boundary edges equals the distance-graph MST.
 
 import { DX, DY, moveCost, styleMask, type RoutingGrid } from './routingGrid';
-import { StateHeap } from './stateHeap';
+import { BucketQueue } from './bucketQueue';
 
 export interface BoundResult {
   lowerBound: number;
@@ -25,13 +25,15 @@ export function voronoiBound(g: RoutingGrid, terminalNodes: readonly number[]): 
   const n = g.n;
   const dist = new Float64Array(n).fill(Infinity);
   const src = new Int32Array(n).fill(-1);
-  const heap = new StateHeap(1 << 16);
+  const heap = new BucketQueue();
+  heap.reset(0.999 * g.h * Math.min(1, g.params.pavementFactor));
   nodes.forEach((v, i) => { dist[v] = 0; src[v] = i; heap.push(0, v); });
   const mask = styleMask(g.params.style);
   const off = new Int32Array(8);
   for (let d = 0; d < 8; d++) off[d] = DX[d] + DY[d] * g.nx;
-  while (heap.size > 0) {
+  for (;;) {
     const v = heap.pop();
+    if (v < 0) break;
     const kv = heap.lastKey;
     if (kv > dist[v]) continue;
     const bits = g.moves[v] & mask;

@@ -44,6 +44,8 @@ export interface RoutingGrid {
   pave: Uint8Array;
   /** Crossing count of the edge from node v in direction d (d 0..3) at v*4+d. */
   cross: Uint8Array;
+  /** Cost of the allowed move from v in direction d at v*8+d (see moveCost). */
+  cost: Float32Array;
   /** Edges of the grown obstacles and the boundary: a trench segment may touch none. */
   blockers: EdgeIndex;
   /** Grown obstacles only, for inside tests. */
@@ -178,8 +180,22 @@ export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
   const cross = new Uint8Array(n * 4);
   markCrossings(crossLines, g, cross);
 
+  const cost = new Float32Array(n * 8);
+  const f = params.pavementFactor;
+  for (let v = 0; v < n; v++) {
+    const bits = moves[v];
+    if (bits === 0) continue;
+    for (let d = 0; d < 8; d++) {
+      if (!((bits >> d) & 1)) continue;
+      const u = v + DX[d] + DY[d] * nx;
+      const fac = ((pave[v] ? f : 1) + (pave[u] ? f : 1)) * 0.5;
+      const c = d < 4 ? cross[v * 4 + d] : cross[u * 4 + d - 4];
+      cost[v * 8 + d] = STEP[d] * h * fac + c * params.crossingPenalty;
+    }
+  }
+
   return {
-    params, x0, y0, h, nx, ny, n, free, moves, pave, cross, blockers, grown,
+    params, x0, y0, h, nx, ny, n, free, moves, pave, cross, cost, blockers, grown,
     obstacles: new EdgeIndex(grown, Math.max(4 * h, 1e-9)), boundary: b,
     pavement: new EdgeIndex(pavementRings, Math.max(4 * h, 1e-9)), crossLines,
   };
@@ -239,11 +255,7 @@ export function nodeY(g: RoutingGrid, v: number): number {
 
 /** Cost of the move from v in direction d: length × mean surface factor + crossing penalties. */
 export function moveCost(g: RoutingGrid, v: number, d: number): number {
-  const u = v + DX[d] + DY[d] * g.nx;
-  const f = g.params.pavementFactor;
-  const fac = ((g.pave[v] ? f : 1) + (g.pave[u] ? f : 1)) * 0.5;
-  const c = d < 4 ? g.cross[v * 4 + d] : g.cross[u * 4 + d - 4];
-  return STEP[d] * g.h * fac + c * g.params.crossingPenalty;
+  return g.cost[v * 8 + d];
 }
 
 /** Bend cost table: turning from travel direction a to b costs bendPenalty·θ/90°; index a*8+b. */

@@ -22,7 +22,7 @@
 import { Cancelled, type Progress } from '../../result';
 import type { Anchor } from './attach';
 import { bendTable, DX, DY, moveCost, styleMask, type RoutingGrid } from './routingGrid';
-import { StateHeap } from './stateHeap';
+import { BucketQueue } from './bucketQueue';
 
 export interface SiteTree {
   /** Bit d at node v: the tree uses the grid edge from v in direction d. */
@@ -44,6 +44,9 @@ export interface SolveOptions {
 }
 
 const OPP = (d: number): number => (d + 4) & 7;
+
+/** Settled states per millisecond of time budget (a conservative single-core rate). */
+export const STATES_PER_MS = 5000;
 
 function popcount8(b: number): number {
   b = b - ((b >> 1) & 0x55);
@@ -72,7 +75,8 @@ export class SiteSteiner {
   private readonly pred: Int32Array;
   private readonly stamp: Int32Array;
   private epoch = 0;
-  private readonly heap = new StateHeap(1 << 16);
+  private readonly heap = new BucketQueue();
+  private readonly width: number;
   /** 0 free, 1 source (not entered), 2 target. */
   private readonly mark: Uint8Array;
   private readonly adj: Uint8Array;
@@ -84,6 +88,10 @@ export class SiteSteiner {
   private readonly joined: Uint8Array;
   private targetCost: (v: number, d: number) => number = () => 0;
   private rootNode = 0;
+  /** States settled so far (the deterministic work measure). */
+  work = 0;
+  private workLimit = Infinity;
+  private wallLimit = Infinity;
 
   constructor(g: RoutingGrid, anchors: readonly Anchor[]) {
     this.g = g;
@@ -91,6 +99,8 @@ export class SiteSteiner {
     for (let d = 0; d < 8; d++) this.off[d] = DX[d] + DY[d] * g.nx;
     this.bend = bendTable(g.params.bendPenalty);
     this.mask = styleMask(g.params.style);
+    // Least move cost: one cell on the cheapest surface (bucket width, slightly under it).
+    this.width = 0.999 * g.h * Math.min(1, g.params.pavementFactor);
     const ns = g.n * 8;
     this.dist = new Float64Array(ns);
     this.pred = new Int32Array(ns);
@@ -114,11 +124,11 @@ export class SiteSteiner {
   }
 
   /** Dijkstra over states from every source node (mark 1) to the cheapest target (mark 2). */
-  private search(sources: readonly number[], seedBend: ((v: number, d: number) => number) | null): { state: number; cost: number } {
+  private search(sources: readonly number[], seedBend: ((v: number, d: number) => number) | null, limit = Infinity): { state: number; cost: number } {
     const g = this.g, off = this.off, bend = this.bend, mask = this.mask;
-    const dist = this.dist, pred = this.pred, stamp = this.stamp, mark = this.mark, heap = this.heap;
+    const dist = this.dist, pred = this.pred, stamp = this.stamp, mark = this.mark, heap = this.heap, cost = g.cost;
     const ep = ++this.epoch;
-    heap.clear();
+    heap.reset(this.width);
     for (const v of sources) {
       const bits = g.moves[v] & mask;
       if (bits === 0) continue;
@@ -136,12 +146,13 @@ export class SiteSteiner {
         }
       }
     }
-    let best = Infinity, bestState = -1;
-    while (heap.size > 0) {
+    let best = limit, bestState = -1;
+    for (;;) {
       const s = heap.pop();
+      if (s < 0 || heap.floorKey() >= best) break;
+      this.work++;
       const k = heap.lastKey;
-      if (k > dist[s]) continue;
-      if (k >= best) break;
+      if (k > dist[s] || k >= best) continue;
       const v = s >> 3, d = s & 7;
       if (mark[v] === 2) {
         const cand = k + this.targetCost(v, d);
@@ -153,7 +164,7 @@ export class SiteSteiner {
         if (e === back || !((bits >> e) & 1)) continue;
         const u = v + off[e];
         if (mark[u] === 1) continue;
-        const nk = k + bend[d * 8 + e] + moveCost(g, v, e);
+        const nk = k + bend[d * 8 + e] + cost[v * 8 + e];
         const s2 = u * 8 + e;
         if (stamp[s2] !== ep || nk < dist[s2]) {
           stamp[s2] = ep;
@@ -194,7 +205,7 @@ export class SiteSteiner {
   };
 
   /** Takahashi–Matsuyama construction from anchor `root` over the anchors in `members`. */
-  private construct(root: number, members: readonly number[], deadline: number, opts: SolveOptions, first: boolean): boolean {
+  private construct(root: number, members: readonly number[], opts: SolveOptions, first: boolean): boolean {
     this.adj.fill(0);
     this.mark.fill(0);
     this.joined.fill(0);
@@ -212,7 +223,7 @@ export class SiteSteiner {
         if (first) throw new Cancelled();
         return false;
       }
-      if (!first && performance.now() > deadline) return false;
+      if (!first && this.over()) return false;
       for (const a of members) if (!this.joined[a] && this.mark[this.anchors[a].node] !== 1) this.mark[this.anchors[a].node] = 2;
       const lone = this.treeList.length === 1;
       const seedBend = lone ? (v: number, d: number): number => {
@@ -316,12 +327,12 @@ export class SiteSteiner {
   }
 
   /** Key-path exchange until no path improves or the deadline passes; returns improvements made. */
-  private improve(deadline: number, signal?: { readonly aborted: boolean }): number {
+  private improve(signal?: { readonly aborted: boolean }): number {
     let gains = 0;
     for (let pass = 0; pass < 4; pass++) {
       let improved = false;
       for (const kp of this.keyPaths()) {
-        if (signal?.aborted || performance.now() > deadline) return gains;
+        if (signal?.aborted || this.over()) return gains;
         let intact = true;
         for (let i = 0; i < kp.dirs.length && intact; i++) intact = ((this.adj[kp.nodes[i]] >> kp.dirs[i]) & 1) === 1;
         if (!intact) continue;
@@ -330,7 +341,7 @@ export class SiteSteiner {
         const a = this.component(kp.nodes[0], 1);
         const b = this.component(kp.nodes[kp.nodes.length - 1], 2);
         this.targetCost = () => 0;
-        const r = this.search(a, null);
+        const r = this.search(a, null, kp.cost - 1e-9);
         if (r.state >= 0 && r.cost < kp.cost - 1e-9) {
           for (let i = 1; i < kp.nodes.length - 1; i++) this.mark[kp.nodes[i]] = 0;
           this.addPathRaw(r.state);
@@ -367,9 +378,9 @@ export class SiteSteiner {
   /** Bounded Dijkstra from the source nodes (mark 1); records the cheapest arrival per node. */
   private explore(sources: readonly number[], bound: number, out: Float64Array, outStamp: Int32Array, ep: number, touched: number[]): void {
     const g = this.g, off = this.off, bend = this.bend, mask = this.mask;
-    const dist = this.dist, stamp = this.stamp, mark = this.mark, heap = this.heap;
+    const dist = this.dist, stamp = this.stamp, mark = this.mark, heap = this.heap, cost = g.cost;
     const se = ++this.epoch;
-    heap.clear();
+    heap.reset(this.width);
     for (const v of sources) {
       if (outStamp[v] !== ep) { outStamp[v] = ep; out[v] = 0; touched.push(v); }
       const bits = g.moves[v] & mask;
@@ -383,8 +394,10 @@ export class SiteSteiner {
         if (stamp[st] !== se || c < dist[st]) { stamp[st] = se; dist[st] = c; heap.push(c, st); }
       }
     }
-    while (heap.size > 0) {
+    for (;;) {
       const st = heap.pop();
+      if (st < 0) break;
+      this.work++;
       const k = heap.lastKey;
       if (k > dist[st]) continue;
       const v = st >> 3, d = st & 7;
@@ -395,7 +408,7 @@ export class SiteSteiner {
         if (e === back || !((bits >> e) & 1)) continue;
         const u = v + off[e];
         if (mark[u] === 1) continue;
-        const nk = k + bend[d * 8 + e] + moveCost(g, v, e);
+        const nk = k + bend[d * 8 + e] + cost[v * 8 + e];
         if (nk > bound) continue;
         const s2 = u * 8 + e;
         if (stamp[s2] !== se || nk < dist[s2]) { stamp[s2] = se; dist[s2] = nk; heap.push(nk, s2); }
@@ -430,7 +443,7 @@ export class SiteSteiner {
    * not a terminal, else a pair) and reconnect the parts through one hub node, the node
    * minimising the sum of the parts' distances to it (key-vertex elimination when x goes).
    */
-  private starExchange(deadline: number, signal?: { readonly aborted: boolean }): number {
+  private starExchange(signal?: { readonly aborted: boolean }): number {
     if (!this.starBuf) {
       this.starBuf = { dist: [0, 1, 2, 3].map(() => new Float64Array(this.g.n)), stamp: [0, 1, 2, 3].map(() => new Int32Array(this.g.n)), epoch: 0 };
     }
@@ -444,9 +457,9 @@ export class SiteSteiner {
       for (let d = 0; d < 8; d++) if ((this.adj[x] >> d) & 1) dirs.push(d);
       const groups: number[][] = [];
       if (!this.isAnchorNode(x) && deg >= 3 && deg <= 4) groups.push(dirs);
-      for (let i = 0; i < dirs.length; i++) for (let j = i + 1; j < dirs.length; j++) groups.push([dirs[i], dirs[j]]);
+      if (this.isAnchorNode(x)) for (let i = 0; i < dirs.length; i++) for (let j = i + 1; j < dirs.length; j++) groups.push([dirs[i], dirs[j]]);
       for (const grp of groups) {
-        if (signal?.aborted || performance.now() > deadline) return gains;
+        if (signal?.aborted || this.over()) return gains;
         if (grp.some((d) => !((this.adj[x] >> d) & 1))) continue;
         if (this.tryStar(x, grp, buf)) gains++;
       }
@@ -480,7 +493,7 @@ export class SiteSteiner {
     const touched: number[][] = comps.map(() => []);
     comps.forEach((c, k) => {
       for (const v of c) this.mark[v] = 1;
-      this.explore(c, old, buf.dist[k], buf.stamp[k], ep, touched[k]);
+      this.explore(c, old / 2, buf.dist[k], buf.stamp[k], ep, touched[k]);
       for (const v of c) this.mark[v] = 0;
     });
     let best = Infinity, hub = -1;
@@ -563,10 +576,21 @@ export class SiteSteiner {
     this.rebuildTreeList();
   }
 
-  /** Solves for the anchors in `members` (all in one grid component). */
+  /** Past the work budget (deterministic) or the wall-clock guard. */
+  private over(): boolean {
+    return this.work > this.workLimit || performance.now() > this.wallLimit;
+  }
+
+  /**
+   * Solves for the anchors in `members` (all in one grid component). The time budget becomes a
+   * work budget of STATES_PER_MS settled states per millisecond, so the same input gives the same
+   * tree on any machine; a wall-clock guard at three times the budget stops a very slow machine.
+   * The first construction always completes.
+   */
   solve(members: readonly number[], opts: SolveOptions): SiteTree {
-    const t0 = performance.now();
-    const deadline = t0 + opts.timeBudgetMs;
+    this.work = 0;
+    this.workLimit = opts.timeBudgetMs * STATES_PER_MS;
+    this.wallLimit = performance.now() + 3 * opts.timeBudgetMs;
     if (members.length === 0) return { adj: new Uint8Array(this.g.n), nodes: new Int32Array(0), cost: 0, joined: [], rounds: 0 };
     const rand = rng(opts.seed);
     const order = members.slice();
@@ -575,27 +599,26 @@ export class SiteSteiner {
       const j = 1 + Math.floor(rand() * i);
       [order[i], order[j]] = [order[j], order[i]];
     }
-    const restarts = Math.min(order.length, opts.maxRestarts ?? 4);
+    const restarts = Math.min(order.length, opts.maxRestarts ?? 3);
     let bestAdj: Uint8Array | null = null;
     let bestCost = Infinity;
     let rounds = 0;
     for (let r = 0; r < restarts; r++) {
-      const done = this.construct(order[r], members, deadline, opts, r === 0);
+      const done = this.construct(order[r], members, opts, r === 0);
       if (!done) break;
       this.prune();
-      const dl = r === 0 ? Math.max(deadline, performance.now() + 0) : deadline;
       for (let round = 0; round < 4; round++) {
-        const a = this.improve(dl, opts.signal);
+        const a = this.improve(opts.signal);
         this.prune();
-        const b = this.starExchange(dl, opts.signal);
+        const b = this.starExchange(opts.signal);
         this.prune();
-        if (a + b === 0 || opts.signal?.aborted || performance.now() > dl) break;
+        if (a + b === 0 || opts.signal?.aborted || this.over()) break;
       }
       const c = this.treeCost();
       rounds++;
       if (c < bestCost - 1e-9) { bestCost = c; bestAdj = this.adj.slice(); }
       opts.onProgress?.('route', 0.6 + (0.4 * (r + 1)) / restarts);
-      if (opts.signal?.aborted || performance.now() > deadline) break;
+      if (opts.signal?.aborted || this.over()) break;
     }
     const adj = bestAdj!;
     const nodes: number[] = [];
