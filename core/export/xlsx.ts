@@ -7,6 +7,7 @@ import type { TakeOff } from '../takeoff/takeoff';
 import { NOTICE_LINES, NOTICE_TITLE } from '../notice';
 import type { Cell, ScheduleMeta } from './scheduleTable';
 import { lineItemHeader, lineItemRows } from './scheduleTable';
+import { pinZipTimes } from './zipTimes';
 
 const QTY = '#,##0.000';
 const MONEY = '#,##0.00';
@@ -112,5 +113,5 @@ export async function writeTakeOffXlsx(t: TakeOff, meta: ScheduleMeta): Promise<
   boxes.getColumn(7).width = 60;
 
   const buf = await wb.xlsx.writeBuffer();
-  return new Uint8Array(buf as ArrayBuffer);
+  return pinZipTimes(new Uint8Array(buf as ArrayBuffer), meta.date);
 }

@@ -4,7 +4,7 @@ import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { PNG } from 'pngjs';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { computeTakeOff } from '../../../core/takeoff/takeoff';
 import type { TakeOff } from '../../../core/takeoff/takeoff';
 import { writeTakeOffXlsx } from '../../../core/export/xlsx';
@@ -120,5 +120,22 @@ describe('schedules', () => {
     const a = await writeReportPdf(t, net, meta);
     const b = await writeReportPdf(t, net, meta);
     expect(Buffer.from(a).equals(Buffer.from(b))).toBe(true);
+  });
+
+  it('the XLSX is byte-identical whatever the clock says, its entries dated by the date passed in (read by Python zipfile)', async () => {
+    vi.useFakeTimers({ toFake: ['Date'] });
+    try {
+      vi.setSystemTime(new Date('2031-07-04T10:11:12Z'));
+      const a = await writeTakeOffXlsx(t, meta);
+      vi.setSystemTime(new Date('2033-02-01T23:59:58Z'));
+      const b = await writeTakeOffXlsx(t, meta);
+      expect(Buffer.from(a).equals(Buffer.from(b))).toBe(true);
+      const file = path.join(OUT, 'pinned.xlsx');
+      fs.writeFileSync(file, a);
+      const dates = JSON.parse(py('import json,sys,zipfile; print(json.dumps(sorted({z.date_time for z in zipfile.ZipFile(sys.argv[1]).infolist()})))', file));
+      expect(dates).toEqual([[2026, 1, 15, 0, 0, 0]]);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 });
