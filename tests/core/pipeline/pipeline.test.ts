@@ -163,3 +163,43 @@ describe('bad input of the import stage is refused with the file and what to do'
     expect(r.ok ? '' : r.error.message).toMatch(/^r\.json: layer 'BLDG-OUTLINE' has role "house"/);
   });
 });
+
+describe('R12 and R2000+ drawings in metres and feet, end to end', () => {
+  // Quillby Yard fixtures written by ezdxf (tests/core/dxf/dxf_check.py make); frame origin 631200, 5402100
+  const DIR = join(TMP, 'quillby');
+  const roles = JSON.stringify({ BLDG: 'building', 'ROAD-EDGE': 'crossing', FENCE: 'crossing', TREES: 'ignore', NOTES: 'ignore' });
+  beforeAll(() => {
+    mkdirSync(DIR, { recursive: true });
+    execFileSync('/usr/bin/python3', [TOOL, 'make', DIR]);
+  });
+  const cases = [['r12', 'm'], ['r12', 'ft'], ['r2000', 'ft'], ['r2018', 'm']] as const;
+  it.each(cases)('%s in %s', async (ver, units) => {
+    const k = units === 'm' ? 1 : 1 / 0.3048;
+    const P = (x: number, y: number): string => `${(631200 + x * k).toFixed(3)},${(5402100 + y * k).toFixed(3)}`;
+    const services = ['id,x,y,role,utilities', `POC,${P(50, 5)},connection,power;telecom`, `B1,${P(25, 30)},service,power;telecom`, `B2,${P(72, 12)},service,power`].join('\n');
+    const name = `site-${ver}-${units}.dxf`;
+    const r = await runPipeline({
+      drawing: { name, bytes: new Uint8Array(readFileSync(join(DIR, name))) },
+      services: { name: 'q.csv', text: services },
+      roles: { name: 'q.json', text: roles },
+      units: ver === 'r12' ? units : undefined,
+      meta: { project: 'Test', site: 'Quillby Yard', date: '2026-01-15' },
+    });
+    if (!r.ok) throw new Error(r.error.message);
+    const s = r.value.summary;
+    expect(s.units).toBe(units);
+    expect(s.services.connected).toBe(2);
+    const merged = audit(r.value.files.routedDxf, `q-${ver}-${units}.dxf`);
+    const orig = JSON.parse(execFileSync('/usr/bin/python3', [TOOL, 'audit', join(DIR, name)], { encoding: 'utf8' }));
+    expect(merged.errors).toBe(0);
+    expect(merged.version).toBe(orig.version);
+    expect(Object.fromEntries(Object.entries(merged.counts).filter(([l]) => !l.startsWith('TRENCH-')))).toEqual(orig.counts);
+    expect(merged.raw.handlesUnique).toBe(true);
+    const len = merged.polylines.filter((p: any) => p.layer === 'TRENCH-CENTERLINE')
+      .reduce((a: number, p: any) => a + p.points.slice(1).reduce((b: number, q: number[], i: number) => b + Math.hypot(q[0] - p.points[i][0], q[1] - p.points[i][1]), 0), 0);
+    expect(Math.abs(len - s.trench.length) / s.trench.length).toBeLessThan(0.001);
+    const layersOnly = audit(r.value.files.trenchDxf, `ql-${ver}-${units}.dxf`);
+    expect(layersOnly.errors).toBe(0);
+    expect(layersOnly.insunits).toBe(units === 'm' ? 6 : 2);
+  });
+});
