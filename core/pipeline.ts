@@ -96,6 +96,9 @@ export interface PipelineOutput {
   settings: Settings;
 }
 
+/** Share of the route stage taken by each of the router's steps (for the progress bar). */
+const ROUTE_STEPS: Record<string, [number, number]> = { grid: [0, 0.05], attach: [0.05, 0.1], route: [0.1, 0.9], bound: [0.9, 0.95], shape: [0.95, 1] };
+
 const round = (v: number, d = 3): number => Math.round(v * 10 ** d) / 10 ** d;
 
 /**
@@ -160,8 +163,15 @@ export async function runPipeline(input: PipelineInput, opts: PipelineOptions = 
   end('place');
 
   begin('route');
+  let routeDone = 0;
   const net = routeSite(site, terminals, settings.route, {
-    onProgress: (_s, f) => { progress('route', Math.min(0.999, Math.max(0.001, f))); check(); },
+    onProgress: (sub, f) => {
+      // the router's own steps, mapped onto one rising fraction of the route stage
+      const span = ROUTE_STEPS[sub];
+      if (span) routeDone = Math.max(routeDone, span[0] + (span[1] - span[0]) * Math.min(1, Math.max(0, f)));
+      progress('route', Math.min(0.999, Math.max(0.001, routeDone)));
+      check();
+    },
     signal: opts.signal,
   });
   check();

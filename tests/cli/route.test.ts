@@ -132,3 +132,18 @@ describe('Ctrl-C', () => {
     expect(existsSync(join(out, 'summary.json'))).toBe(false);
   });
 });
+
+describe('progress', () => {
+  it('draws a bar with the stage names on stderr when it is a terminal', async () => {
+    // util-linux `script` gives the command a pseudo-terminal; its output is the terminal's
+    const out = join(TMP, 'tty');
+    const cmd = [process.execPath, BIN, 'route', ...demoArgs(out, ['--json'])].map((a) => `'${a}'`).join(' ') + ' >/dev/null';
+    const r = await new Promise<string>((resolve, reject) => execFile('script', ['-qec', cmd, '/dev/null'], { cwd: ROOT, maxBuffer: 1 << 24 }, (e, stdout) => (e ? reject(e) : resolve(stdout))));
+    const frames = r.split('\r').map((f) => f.replace(/\x1b\[K/g, '').trim()).filter((f) => f.startsWith('['));
+    for (const [i, st] of ['read', 'site', 'place', 'route', 'takeoff', 'write'].entries()) {
+      expect(frames.some((f) => f.endsWith(`${st} (${i + 1}/6)`))).toBe(true);
+    }
+    const pct = frames.map((f) => Number(/\]\s+(\d+)%/.exec(f)![1]));
+    expect(pct.every((p, i) => i === 0 || p >= pct[i - 1])).toBe(true);
+  });
+});
