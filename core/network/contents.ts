@@ -69,11 +69,9 @@ export function polylineLength(p: Float64Array): number {
 
 /** Turning angle in degrees (0 straight, 180 reversal) between direction (ax,ay) and (bx,by). */
 export function turnDeg(ax: number, ay: number, bx: number, by: number): number {
-  const la = Math.hypot(ax, ay);
-  const lb = Math.hypot(bx, by);
-  if (la === 0 || lb === 0) return 0;
-  const c = Math.max(-1, Math.min(1, (ax * bx + ay * by) / (la * lb)));
-  return (Math.acos(c) * 180) / Math.PI;
+  if ((ax === 0 && ay === 0) || (bx === 0 && by === 0)) return 0;
+  // atan2 of |cross| and dot stays accurate near 0° and 180°, where acos does not.
+  return (Math.atan2(Math.abs(ax * by - ay * bx), ax * bx + ay * by) * 180) / Math.PI;
 }
 
 /** Direction of the first (atEnd=false) or last non-zero piece of a polyline. */

@@ -37,6 +37,8 @@ export interface PullOptions {
 }
 
 const EPS = 1e-9;
+/** Angles come from coordinates; a millionth of a degree absorbs their rounding. */
+const BEND_EPS_DEG = 1e-6;
 const DEG = Math.PI / 180;
 
 interface State { bend: number; lenM: number; tensionLb: number; fresh: boolean }
@@ -64,7 +66,7 @@ function advance(s: State, lim: Limits, thetaDeg: number, lenM: number, riserDeg
 }
 
 function violation(s: State, lim: Limits): { kind: PullReason; detail: string } | null {
-  if (lim.bendDeg > 0 && s.bend > lim.bendDeg + EPS) return { kind: 'bend', detail: `bend ${round(s.bend)}° > ${lim.bendDeg}°` };
+  if (lim.bendDeg > 0 && s.bend > lim.bendDeg + BEND_EPS_DEG) return { kind: 'bend', detail: `bend ${round(s.bend)}° > ${lim.bendDeg}°` };
   if (lim.pullM > 0 && s.lenM > lim.pullM + EPS) return { kind: 'length', detail: `pull ${round(s.lenM)} m > ${round(lim.pullM)} m` };
   if (lim.cable && s.tensionLb > lim.cable.maxTensionLb + EPS) {
     return { kind: 'tension', detail: `tension ${round(s.tensionLb)} lb > ${lim.cable.maxTensionLb} lb` };
