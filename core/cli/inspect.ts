@@ -6,7 +6,8 @@ import { registerCommand } from './main';
 import { readDrawingFile } from '../io/readDrawingFile';
 import { buildSite } from '../site/buildSite';
 import { inspectDrawing, inspectText } from '../site/inspect';
-import { LAYER_ROLES, type LayerRole } from '../site/site';
+import type { LayerRole } from '../site/site';
+import { parseRolesFile } from '../site/rolesFile';
 import type { LengthUnit } from '../units';
 
 const USAGE = 'usage: furrow inspect <drawing.dxf> [--roles roles.json] [--units m|ft] [--json]';
@@ -36,22 +37,23 @@ export async function inspectCommand(args: string[]): Promise<number> {
   if (!file) return fail(`no drawing given\n${USAGE}`);
   if (rolesPath === undefined && args.includes('--roles')) return fail(`--roles needs a file\n${USAGE}`);
 
-  let roles: Record<string, LayerRole> | undefined;
+  let rolesText: string | undefined;
   if (rolesPath) {
     try {
-      const parsed = JSON.parse(await readFile(rolesPath, 'utf8'));
-      if (!parsed || typeof parsed !== 'object' || Array.isArray(parsed)) throw new Error('expected an object { "<layer>": "<role>" }');
-      for (const [k, v] of Object.entries(parsed)) {
-        if (!LAYER_ROLES.includes(v as LayerRole)) throw new Error(`layer '${k}' has role '${String(v)}'; roles are ${LAYER_ROLES.join(', ')}`);
-      }
-      roles = parsed as Record<string, LayerRole>;
+      rolesText = await readFile(rolesPath, 'utf8');
     } catch (x) {
-      return fail(`${rolesPath}: cannot use the roles file (${x instanceof Error ? x.message : String(x)})`);
+      return fail(`${rolesPath}: cannot read the roles file (${x instanceof Error ? x.message : String(x)})`);
     }
   }
 
   const d = await readDrawingFile(file);
   if (!d.ok) return fail(d.error.message);
+  let roles: Record<string, LayerRole> | undefined;
+  if (rolesText !== undefined && rolesPath) {
+    const parsed = parseRolesFile(rolesText, rolesPath, d.value.layers.map((l) => l.name));
+    if (!parsed.ok) return fail(parsed.error.message);
+    roles = parsed.value.roles;
+  }
   const site = buildSite(d.value, { roles, units });
   const report = inspectDrawing(d.value, site.ok ? site.value : site.error, roles);
   if (json) process.stdout.write(JSON.stringify(report, null, 2) + '\n');

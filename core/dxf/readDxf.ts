@@ -165,15 +165,28 @@ function extentsOf(entities: Drawing['entities']): Extents {
   return { minX, minY, maxX, maxY };
 }
 
+/** Layers from the table, plus any used but missing; entity layer names take the table's spelling (DXF layer names are case-insensitive). */
 function layersOf(dxf: any, entities: Drawing['entities']): DrawingLayer[] {
   const table: Record<string, any> = dxf.tables?.layer?.layers ?? {};
-  const out = new Map<string, DrawingLayer>();
+  const out = new Map<string, DrawingLayer>(); // key: upper-case name
   for (const name of Object.keys(table)) {
     const l = table[name];
-    out.set(name, { name, color: Math.abs(l.colorIndex ?? 7), on: l.visible !== false, frozen: !!l.frozen });
+    const key = name.toUpperCase();
+    if (!out.has(key)) out.set(key, { name, color: Math.abs(l.colorIndex ?? 7), on: l.visible !== false, frozen: !!l.frozen });
   }
+  let last = '';
+  let lastCanon = '';
   for (const e of entities) {
-    if (!out.has(e.layer)) out.set(e.layer, { name: e.layer, color: 7, on: true, frozen: false });
+    if (e.layer === last) { e.layer = lastCanon; continue; }
+    last = e.layer;
+    const key = e.layer.toUpperCase();
+    let l = out.get(key);
+    if (!l) {
+      l = { name: e.layer, color: 7, on: true, frozen: false };
+      out.set(key, l);
+    }
+    lastCanon = l.name;
+    e.layer = l.name;
   }
   return [...out.values()];
 }

@@ -169,13 +169,19 @@ function resolveRoles(drawing: Drawing, given: Record<string, LayerRole> | undef
     for (const s of suggestRoles(drawing)) out[s.layer] = s.role;
     return ok(out);
   }
-  const names = new Set(drawing.layers.map((l) => l.name));
+  // DXF layer names are case-insensitive: a role for 'bldg' applies to layer 'BLDG'
+  const byUpper = new Map(drawing.layers.map((l) => [l.name.toUpperCase(), l.name]));
   for (const [layer, role] of Object.entries(given)) {
     if (!LAYER_ROLES.includes(role)) {
       return err({ kind: 'bad-role', message: `layer '${layer}' has role '${String(role)}'; roles are ${LAYER_ROLES.join(', ')}` });
     }
-    if (!names.has(layer)) warnings.push(`roles name layer '${layer}', which the drawing does not have`);
-    out[layer] = role;
+    const name = byUpper.get(layer.toUpperCase());
+    if (name === undefined) {
+      warnings.push(`roles name layer '${layer}', which the drawing does not have`);
+      out[layer] = role;
+    } else {
+      out[name] = role;
+    }
   }
   for (const l of drawing.layers) if (!(l.name in out)) out[l.name] = 'ignore';
   return ok(out);

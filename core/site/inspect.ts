@@ -33,12 +33,15 @@ export function inspectDrawing(drawing: Drawing, site: Site | SiteError, givenRo
   const counts = new Map<string, number>();
   for (const e of drawing.entities) counts.set(e.layer, (counts.get(e.layer) ?? 0) + 1);
   const suggested = new Map(suggestRoles(drawing).map((s) => [s.layer, s]));
+  // layer names are case-insensitive in DXF
+  const givenUpper = new Map(Object.entries(givenRoles ?? {}).map(([k, v]) => [k.toUpperCase(), v]));
   const layers: InspectLayer[] = drawing.layers.map((l) => {
     let role: LayerRole;
     let reason: string;
     if (givenRoles) {
-      role = givenRoles[l.name] ?? 'ignore';
-      reason = l.name in givenRoles ? 'given in the roles file' : 'not named in the roles file';
+      const g = givenUpper.get(l.name.toUpperCase());
+      role = g ?? 'ignore';
+      reason = g !== undefined ? 'given in the roles file' : 'not named in the roles file';
     } else {
       const s = suggested.get(l.name);
       role = s?.role ?? 'ignore';

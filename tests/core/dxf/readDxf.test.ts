@@ -211,3 +211,23 @@ describe('readDxf: bad input gives an error value', () => {
     expect(r.ok && r.value.entities[0].layer).toBe('BÂT');
   });
 });
+
+describe('readDxf: layers', () => {
+  it('gives entities the layer table spelling of their layer (names are case-insensitive) and lists used layers missing from the table', () => {
+    const text = ['0', 'SECTION', '2', 'TABLES', '0', 'TABLE', '2', 'LAYER', '70', '1',
+      '0', 'LAYER', '2', 'Bldg', '70', '1', '62', '-3', '6', 'CONTINUOUS', '0', 'ENDTAB', '0', 'ENDSEC',
+      '0', 'SECTION', '2', 'ENTITIES',
+      '0', 'LINE', '8', 'BLDG', '10', '0', '20', '0', '11', '1', '21', '1',
+      '0', 'LINE', '8', 'fence', '10', '0', '20', '0', '11', '1', '21', '1',
+      '0', 'ENDSEC', '0', 'EOF'].join('\n');
+    const r = readDxf(text);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.value.entities.map((e) => e.layer)).toEqual(['Bldg', 'fence']);
+    // group 62 negative = layer off; group 70 bit 1 = frozen (DXF reference, LAYER table)
+    expect(r.value.layers).toEqual([
+      { name: 'Bldg', color: 3, on: false, frozen: true },
+      { name: 'fence', color: 7, on: true, frozen: false },
+    ]);
+  });
+});

@@ -205,3 +205,16 @@ describe('buildSite: bad geometry', () => {
     );
   });
 });
+
+describe('buildSite: layer names', () => {
+  it('matches roles to layers regardless of letter case, as DXF layer names are case-insensitive', () => {
+    const r = buildSite(readFixture('roles_m.dxf'), { roles: { bldg: 'building', 'pave-asphalt': 'pavement' } });
+    expect(r.ok).toBe(true);
+    if (r.ok) {
+      expect(r.value.buildings).toHaveLength(1);
+      expect(r.value.pavements).toHaveLength(1);
+      expect(r.value.roles.BLDG).toBe('building');
+      expect(r.value.warnings.some((w) => /does not have/.test(w))).toBe(false);
+    }
+  });
+});
