@@ -42,3 +42,6 @@ export function excavationSection(widthM: number, depthM: number, trench: Pick<T
   // Simple slope from the trench bottom: two triangles of k·d by d added to the rectangle.
   return { areaM2: widthM * depthM + k * depthM * depthM, topWidthM: widthM + 2 * k * depthM, protection: 'sloping' };
 }
+
+/** Typical swell, bank → loose, by material, for choosing the swell setting (DOMAIN.md; practice). */
+export const TYPICAL_SWELL: Readonly<Record<'sand' | 'earth' | 'clay', number>> = { sand: 0.12, earth: 0.25, clay: 0.4 };
