@@ -35,6 +35,8 @@ export interface SegmentContents {
   segmentId: number;
   /** Utilities carried, in the order of the utility settings; absent when nothing passes. */
   loads: UtilityLoad[];
+  /** The same as a map: utility key → conduits (pipes for mains). */
+  byUtility: Record<string, number>;
 }
 
 /** Adjacency of the tree: node id → incident segment indices (ascending). */
@@ -179,7 +181,7 @@ export function traceRuns(
 
 /** Contents of every segment (same order as net.segments). */
 export function contentsFromRuns(net: TrenchNetwork, runs: ConduitRun[], utilities: UtilitySetting[]): SegmentContents[] {
-  const out: SegmentContents[] = net.segments.map((s) => ({ segmentId: s.id, loads: [] }));
+  const out: SegmentContents[] = net.segments.map((s) => ({ segmentId: s.id, loads: [], byUtility: {} }));
   for (const u of utilities) {
     const per = net.segments.map(() => ({ services: [] as string[], connections: new Set<string>() }));
     for (const r of runs) {
@@ -193,6 +195,7 @@ export function contentsFromRuns(net: TrenchNetwork, runs: ConduitRun[], utiliti
       if (p.services.length === 0) return;
       const conduits = u.kind === 'radial' ? u.perService * p.services.length : 1;
       out[i].loads.push({ utility: u.key, conduits, services: p.services, connections: [...p.connections].sort() });
+      out[i].byUtility[u.key] = conduits;
     });
   }
   return out;

@@ -36,6 +36,7 @@ describe('segment contents', () => {
       'power:3 water:1', 'power:2 water:1', 'power:1', '',
     ]);
     expect(c[1].loads[0].services).toEqual(['B', 'C']);
+    expect(c.map((s) => s.byUtility)).toEqual([{ power: 3, water: 1 }, { power: 2, water: 1 }, { power: 1 }, {}]);
   });
 
   it('feeds each service from the nearest connection along the tree carrying its utility', () => {
