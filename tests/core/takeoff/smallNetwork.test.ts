@@ -137,4 +137,22 @@ describe('take-off of a small network, line by line', () => {
     expect(rest?.unit).toBe('yd²');
     expect(rest?.quantity).toBeCloseTo((10 * cutW) / 0.83612736, 3); // 1 yd² = 0.83612736 m² (NIST)
   });
+
+  it('the same network drawn in feet gives the same metric take-off (1 ft = 0.3048 m exactly, NIST)', () => {
+    const k = 1 / 0.3048;
+    const ftNet = handNetwork(
+      net.nodes.map((n) => ({ ...n, x: n.x * k, y: n.y * k })),
+      net.segments.map((s) => ({
+        from: s.from, to: s.to, pts: [...s.points].map((v) => v * k), pave: s.lengthUnderPavement * k,
+        crossings: s.crossings.map((c) => ({ ...c, x: c.x * k, y: c.y * k })),
+      })),
+      'ft',
+    );
+    const ftTerms = terms.map((x) => terminal(x.id, x.role, x.utilities, x.x * k, x.y * k));
+    const s = defaultSettings();
+    s.units = 'm';
+    const m = computeTakeOff(ftNet, ftTerms, s);
+    for (const [key, q] of Object.entries(expected)) expect(m.lines.find((l) => l.key === key)?.quantity, key).toBeCloseTo(q, 3);
+    expect(m.pullBoxes.map((b) => b.nodeId)).toEqual([1]);
+  });
 });
