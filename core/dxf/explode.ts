@@ -3,7 +3,7 @@
 
 import type { DrawingEntity, SourceKind } from './drawing';
 import { type Affine, IDENTITY, applyInPlace, compose, insertTransform, isIdentity, maxStretch } from './affine';
-import { circleRing, ellipsePoints, pushArc, pushBulge, splinePoints } from './tessellate';
+import { circleRing, ellipsePoints, interpolateFitPoints, pushArc, pushBulge, splinePoints } from './tessellate';
 import type { RawCircle, RawPolyline } from './parserHandlers';
 import { plainText } from './plainText';
 
@@ -167,8 +167,14 @@ export class Exploder {
       pts = splinePoints(p, knots, ctrl, tol);
       if (e.rational) this.notes.push('a rational SPLINE was approximated without its weights');
     } else if (e.fitPoints && e.fitPoints.length >= 2) {
-      pts = e.fitPoints.flatMap((f: { x: number; y: number }) => [f.x, f.y]);
-      this.notes.push('a SPLINE without a control polygon was drawn through its fit points');
+      const fit: number[] = e.fitPoints.flatMap((f: { x: number; y: number }) => [f.x, f.y]);
+      const curve = interpolateFitPoints(fit, p);
+      if (curve) {
+        pts = splinePoints(curve.p, curve.knots, curve.ctrl, tol);
+      } else {
+        pts = fit;
+        this.notes.push('a SPLINE with only fit points was drawn as straight segments through them');
+      }
     } else {
       return this.skip('SPLINE (incomplete)');
     }

@@ -160,3 +160,101 @@ export function splinePoints(p: number, knots: ArrayLike<number>, ctrl: ArrayLik
   }
   return out;
 }
+
+/**
+ * Global curve interpolation through fit points: a B-spline of degree p through every point, with
+ * chord-length parameters and knots by averaging (Piegl & Tiller, "The NURBS Book", 2nd ed., 1997,
+ * §9.2.1, eqs. 9.5 and 9.8, Algorithm A9.1). Returns knots and control points (x,y pairs), or null
+ * when the points are too many for the dense solve or degenerate.
+ */
+export function interpolateFitPoints(fit: ArrayLike<number>, degree = 3): { p: number; knots: Float64Array; ctrl: Float64Array } | null {
+  const m = fit.length / 2; // number of points, n + 1
+  if (m < 2 || m > 400) return null;
+  const p = Math.min(degree, m - 1);
+  const n = m - 1;
+  const u = new Float64Array(m);
+  let total = 0;
+  for (let k = 1; k < m; k++) total += Math.hypot(fit[2 * k] - fit[2 * k - 2], fit[2 * k + 1] - fit[2 * k - 1]);
+  if (!(total > 0)) return null;
+  for (let k = 1; k < m; k++) u[k] = u[k - 1] + Math.hypot(fit[2 * k] - fit[2 * k - 2], fit[2 * k + 1] - fit[2 * k - 1]) / total;
+  u[n] = 1;
+  const knots = new Float64Array(m + p + 1);
+  for (let j = 0; j <= p; j++) knots[m + j] = 1;
+  for (let j = 1; j <= n - p; j++) {
+    let s = 0;
+    for (let i = j; i <= j + p - 1; i++) s += u[i];
+    knots[j + p] = s / p;
+  }
+  // A[k][i] = N_{i,p}(u_k)
+  const A = Array.from({ length: m }, () => new Float64Array(m));
+  const N = new Float64Array(p + 1);
+  for (let k = 0; k < m; k++) {
+    const span = findSpan(n, p, u[k], knots);
+    basisFuns(span, u[k], p, knots, N);
+    for (let j = 0; j <= p; j++) A[k][span - p + j] = N[j];
+  }
+  const bx = new Float64Array(m), by = new Float64Array(m);
+  for (let k = 0; k < m; k++) { bx[k] = fit[2 * k]; by[k] = fit[2 * k + 1]; }
+  if (!solveInPlace(A, bx, by)) return null;
+  const ctrl = new Float64Array(2 * m);
+  for (let i = 0; i < m; i++) { ctrl[2 * i] = bx[i]; ctrl[2 * i + 1] = by[i]; }
+  return { p, knots, ctrl };
+}
+
+/** Knot span index for u (The NURBS Book, Algorithm A2.1). */
+function findSpan(n: number, p: number, u: number, U: ArrayLike<number>): number {
+  if (u >= U[n + 1]) return n;
+  let lo = p, hi = n + 1;
+  let mid = (lo + hi) >> 1;
+  while (u < U[mid] || u >= U[mid + 1]) {
+    if (u < U[mid]) hi = mid; else lo = mid;
+    mid = (lo + hi) >> 1;
+  }
+  return mid;
+}
+
+/** The p+1 non-zero basis functions at u (The NURBS Book, Algorithm A2.2). */
+function basisFuns(i: number, u: number, p: number, U: ArrayLike<number>, N: Float64Array): void {
+  const left = new Float64Array(p + 1), right = new Float64Array(p + 1);
+  N[0] = 1;
+  for (let j = 1; j <= p; j++) {
+    left[j] = u - U[i + 1 - j];
+    right[j] = U[i + j] - u;
+    let saved = 0;
+    for (let r = 0; r < j; r++) {
+      const temp = N[r] / (right[r + 1] + left[j - r]);
+      N[r] = saved + right[r + 1] * temp;
+      saved = left[j - r] * temp;
+    }
+    N[j] = saved;
+  }
+}
+
+/** Gaussian elimination with partial pivoting on A x = b for two right-hand sides, in place. */
+function solveInPlace(A: Float64Array[], b1: Float64Array, b2: Float64Array): boolean {
+  const m = A.length;
+  for (let c = 0; c < m; c++) {
+    let piv = c;
+    for (let r = c + 1; r < m; r++) if (Math.abs(A[r][c]) > Math.abs(A[piv][c])) piv = r;
+    if (Math.abs(A[piv][c]) < 1e-14) return false;
+    if (piv !== c) {
+      [A[piv], A[c]] = [A[c], A[piv]];
+      [b1[piv], b1[c]] = [b1[c], b1[piv]];
+      [b2[piv], b2[c]] = [b2[c], b2[piv]];
+    }
+    for (let r = c + 1; r < m; r++) {
+      const f = A[r][c] / A[c][c];
+      if (f === 0) continue;
+      for (let k = c; k < m; k++) A[r][k] -= f * A[c][k];
+      b1[r] -= f * b1[c];
+      b2[r] -= f * b2[c];
+    }
+  }
+  for (let r = m - 1; r >= 0; r--) {
+    let s1 = b1[r], s2 = b2[r];
+    for (let k = r + 1; k < m; k++) { s1 -= A[r][k] * b1[k]; s2 -= A[r][k] * b2[k]; }
+    b1[r] = s1 / A[r][r];
+    b2[r] = s2 / A[r][r];
+  }
+  return true;
+}

@@ -1,6 +1,7 @@
 // The DXF reader against an independent writer and geometry engine (ezdxf) and closed forms.
 import { describe, expect, it } from 'vitest';
 import { defaultChordTolerance, readDxf, readDxfBytes } from '../../../core/dxf/readDxf';
+import { interpolateFitPoints } from '../../../core/dxf/tessellate';
 import type { PolylineEntity } from '../../../core/dxf/drawing';
 import { distanceToPolyline, expected, fixtureBytes, pairs, readFixture } from './fixtures';
 
@@ -84,7 +85,7 @@ describe('readDxf: entities', () => {
     expect(tol).toBeCloseTo(0.01, 15); // 1 cm in metres
     const fence = polys(d, 'EX-FENCE');
     const ell = fence.find((e) => e.source === 'ELLIPSE')!;
-    const sp = fence.find((e) => e.source === 'SPLINE')!;
+    const sp = fence.find((e) => e.source === 'SPLINE' && e.points[0] === 0 && e.points[1] === 50)!;
     // ezdxf evaluates the exact curves (flattened at 0.5 mm): the two agree within our tolerance plus theirs
     expectSameCurve(pairs(ell.points), exp.halfEllipse, tol + 0.0005);
     expectSameCurve(pairs(sp.points), exp.spline, tol + 0.0005);
@@ -95,6 +96,23 @@ describe('readDxf: entities', () => {
     const cy = pts.reduce((s, p) => s + p[1], 0) / pts.length;
     expect(cx).toBeCloseTo(exp.ocsCircleCenter[0], 9);
     expect(cy).toBeCloseTo(exp.ocsCircleCenter[1], 9);
+  });
+
+  it('interpolates a fit-point SPLINE by global interpolation (The NURBS Book, A9.1) as ezdxf computes it', () => {
+    const fit = [[0, 100], [12, 118], [30, 104], [41, 131], [63, 110], [70, 95]];
+    const exp = expected()['curves_m.dxf'].fitSplineA91;
+    const ours = interpolateFitPoints(fit.flat())!;
+    // independent implementation of the same method: same knots and control points
+    expect(Array.from(ours.knots)).toHaveLength(exp.knots.length);
+    ours.knots.forEach((k, i) => expect(k).toBeCloseTo(exp.knots[i], 12));
+    pairs(ours.ctrl).forEach(([x, y], i) => {
+      expect(x).toBeCloseTo(exp.ctrl[i][0], 9);
+      expect(y).toBeCloseTo(exp.ctrl[i][1], 9);
+    });
+    // the drawn curve passes through every fit point (interpolation, by definition), up to the chord error
+    const d = readFixture('curves_m.dxf');
+    const sp = polys(d, 'EX-FENCE').find((e) => e.source === 'SPLINE' && e.points[0] === 0 && e.points[1] === 100)!;
+    for (const [x, y] of fit) expect(distanceToPolyline(x, y, pairs(sp.points))).toBeLessThanOrEqual(defaultChordTolerance(6));
   });
 
   it('keeps TEXT and MTEXT as plain text', () => {
