@@ -4,7 +4,7 @@
 
 import { err, ok, type Result } from '../result';
 import { versionNumber, handleHex, type TextEncoding } from './dxfFormat';
-import { byteStringToBytes, bytesToByteString, scanDxf, type DxfScan } from './scanDxf';
+import { byteStringToBytes, scanDxf, type DxfScan } from './scanDxf';
 import { buildTrenchDrawing, type TrenchDrawing, type TrenchDrawingInput } from './trenchEntities';
 import { Tags, writeContinuousLtype, writeEntity, writeLayerRecord, type Flavor } from './writeEntities';
 import type { LengthUnit } from '../units';
@@ -29,8 +29,7 @@ export interface MergedDxf {
  * bytes; output bytes differ from them only at the insertion points and in $HANDSEED.
  */
 export function writeMergedDxf(original: Uint8Array, input: TrenchDrawingInput): Result<MergedDxf, DxfWriteError> {
-  const text = bytesToByteString(original);
-  const scanned = scanDxf(text);
+  const scanned = scanDxf(original);
   if (!scanned.ok) return err(scanned.error);
   const sc = scanned.value;
   const entitiesEnd = sc.sectionEnd.get('ENTITIES');
@@ -48,6 +47,7 @@ export function writeMergedDxf(original: Uint8Array, input: TrenchDrawingInput):
     version: modern ? version : 1009, handles, encoding: textEncoding(version, sc.codepage), next: start < 1n ? 1n : start,
     modelSpace: sc.modelSpaceRecord ?? undefined, layerTable: sc.tableHandle.get('LAYER'),
     continuous: existingLtype ?? (modern ? 'Continuous' : 'CONTINUOUS'),
+    plotStyle: sc.layerPlotStyle ?? undefined,
   };
   const drawing = buildTrenchDrawing(input);
   const warnings: string[] = [];
@@ -98,18 +98,23 @@ export function writeMergedDxf(original: Uint8Array, input: TrenchDrawingInput):
     else inserts.push({ at: sc.sectionEnd.get('HEADER')!, text: new Tags().add(9, '$HANDSEED').add(5, seedText).text(sc.eol) });
   }
 
-  inserts.sort((a, b) => a.at - b.at);
-  const parts: string[] = [];
-  let cursor = 0;
   const cuts: { at: number; end: number; text: string }[] = inserts.map((i) => ({ at: i.at, end: i.at, text: i.text }));
   if (replaceSeed) cuts.push({ at: replaceSeed.start, end: replaceSeed.end, text: replaceSeed.text });
   cuts.sort((a, b) => a.at - b.at || a.end - b.end);
+  let size = original.length;
+  for (const c of cuts) size += c.text.length - (c.end - c.at);
+  const bytes = new Uint8Array(size);
+  let cursor = 0;
+  let w = 0;
   for (const c of cuts) {
-    parts.push(text.slice(cursor, c.at), c.text);
+    bytes.set(original.subarray(cursor, c.at), w);
+    w += c.at - cursor;
+    bytes.set(byteStringToBytes(c.text), w);
+    w += c.text.length;
     cursor = c.end;
   }
-  parts.push(text.slice(cursor));
-  return ok({ bytes: byteStringToBytes(parts.join('')), warnings, added: drawing.entities.length });
+  bytes.set(original.subarray(cursor), w);
+  return ok({ bytes, warnings, added: drawing.entities.length });
 }
 
 export interface LayerOnlyOptions {

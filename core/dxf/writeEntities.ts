@@ -21,6 +21,8 @@ export interface Flavor {
   layerTable?: string;
   /** Name of the continuous linetype as the file spells it. */
   continuous: string;
+  /** Plot style handle for new layer records (group 390), as the file's layer 0 has it. */
+  plotStyle?: string;
 }
 
 /** Collects group code / value lines. */
@@ -50,7 +52,10 @@ export function writeLayerRecord(t: Tags, layer: OutLayer, f: Flavor): void {
     t.add(100, 'AcDbSymbolTableRecord').add(100, 'AcDbLayerTableRecord');
   }
   t.add(2, dxfText(layer.name, f.encoding)).add(70, 0).add(62, layer.color).add(6, f.continuous);
-  if (modern(f)) t.add(370, -3);
+  if (modern(f)) {
+    t.add(370, -3);
+    if (f.plotStyle) t.add(390, f.plotStyle);
+  }
 }
 
 /** A CONTINUOUS linetype record, for files that lack one. */
