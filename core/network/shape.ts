@@ -151,6 +151,50 @@ function straightenAll(sg: ShapeGraph, g: RoutingGrid, style: GeometryStyle): vo
   for (const r of sg.runs) if (r.alive && !r.stub) r.pts = straightenRun(g, r.pts, style);
 }
 
+/**
+ * Any-angle refinement of one run: a vertex is added where the run crosses a pavement edge,
+ * then each interior vertex moves (pattern search, steps halving from one cell) while the run
+ * gets cheaper and stays clear — so a run refracts across a costly strip as a least-cost path
+ * does (Snell's law) instead of crossing it where the straight line happened to.
+ */
+export function refineRun(g: RoutingGrid, pts: number[]): number[] {
+  const p: number[] = [pts[0], pts[1]];
+  for (let i = 0; i + 3 < pts.length; i += 2) {
+    const ax = pts[i], ay = pts[i + 1], bx = pts[i + 2], by = pts[i + 3];
+    const ts: number[] = [];
+    g.pavement.crossings(ax, ay, bx, by, ts);
+    ts.sort((a, b) => a - b);
+    for (const t of ts) p.push(ax + (bx - ax) * t, ay + (by - ay) * t);
+    p.push(bx, by);
+  }
+  const m = p.length / 2;
+  if (m <= 2) return p;
+  const local = (i: number): number => polylineCost(g, p.slice(Math.max(0, 2 * (i - 2)), Math.min(p.length, 2 * (i + 3))));
+  for (let sweep = 0; sweep < 12; sweep++) {
+    let gained = 0;
+    for (let i = 1; i < m - 1; i++) {
+      let best = local(i);
+      for (let step = g.h; step > g.h / 512; step /= 2) {
+        let moved = true;
+        while (moved) {
+          moved = false;
+          for (let d = 0; d < 8; d++) {
+            const ox = p[2 * i], oy = p[2 * i + 1];
+            const nx = ox + Math.cos((d * Math.PI) / 4) * step, ny = oy + Math.sin((d * Math.PI) / 4) * step;
+            if (!segmentClear(g, p[2 * i - 2], p[2 * i - 1], nx, ny) || !segmentClear(g, nx, ny, p[2 * i + 2], p[2 * i + 3])) continue;
+            p[2 * i] = nx; p[2 * i + 1] = ny;
+            const c = local(i);
+            if (c < best - 1e-12) { gained += best - c; best = c; moved = true; break; }
+            p[2 * i] = ox; p[2 * i + 1] = oy;
+          }
+        }
+      }
+    }
+    if (gained < g.h * 1e-6) break;
+  }
+  return removeCollinear(p, g.h * 1e-6);
+}
+
 /** Shapes the working graph in place for the style. */
 export function shapeGraph(sg: ShapeGraph, g: RoutingGrid, style: GeometryStyle): void {
   straightenAll(sg, g, style);
@@ -166,6 +210,7 @@ export function shapeGraph(sg: ShapeGraph, g: RoutingGrid, style: GeometryStyle)
     straightenAll(sg, g, style);
     if (moved < g.h * 1e-6) break;
   }
+  for (const r of sg.runs) if (r.alive && !r.stub) r.pts = refineRun(g, r.pts);
 }
 
 function polyMetrics(g: RoutingGrid, p: number[]): { length: number; paved: number; crossings: SegmentCrossing[]; bends: number[] } {

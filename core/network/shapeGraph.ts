@@ -3,7 +3,7 @@
 // prices it (length × surface factor, crossings, bends), pavement length and crossing points.
 
 import type { SegmentCrossing, TrenchNodeKind } from './trenchNetwork';
-import type { RoutingGrid } from '../route/site/routingGrid';
+import { pavedLengthOn, type RoutingGrid } from '../route/site/routingGrid';
 import { crossingParam, turnDeg } from '../route/site/geom';
 
 export interface ShapeVertex {
@@ -112,20 +112,9 @@ export function removeCollinear(p: number[], tol: number): number[] {
   return out;
 }
 
-/** Length of a-b under pavement (union of pavement areas, even-odd by midpoints). */
+/** Length of a-b under pavement (union of the pavement areas). */
 export function pavedLength(g: RoutingGrid, ax: number, ay: number, bx: number, by: number): number {
-  const ts = [0, 1];
-  g.pavement.crossings(ax, ay, bx, by, ts);
-  ts.sort((p, q) => p - q);
-  const len = Math.hypot(bx - ax, by - ay);
-  let paved = 0;
-  for (let i = 0; i + 1 < ts.length; i++) {
-    const t0 = ts[i], t1 = ts[i + 1];
-    if (t1 - t0 <= 0) continue;
-    const tm = (t0 + t1) / 2;
-    if (g.pavement.inside(ax + (bx - ax) * tm, ay + (by - ay) * tm)) paved += (t1 - t0) * len;
-  }
-  return paved;
+  return pavedLengthOn(g.pavement, ax, ay, bx, by);
 }
 
 /** Crossings of a-b with the crossing features, in order along a-b (half-open at b). */

@@ -180,24 +180,32 @@ export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
   const cross = new Uint8Array(n * 4);
   markCrossings(crossLines, g, cross);
 
+  const pavement = new EdgeIndex(pavementRings, Math.max(4 * h, 1e-9));
+  // Near a pavement edge the paved part of a move is measured exactly; elsewhere both ends agree.
+  const paveNear = new Uint8Array(n);
+  markNear(pavementRings, g, paveNear);
   const cost = new Float32Array(n * 8);
   const f = params.pavementFactor;
   for (let v = 0; v < n; v++) {
     const bits = moves[v];
     if (bits === 0) continue;
+    const vx = x0 + (v % nx) * h, vy = y0 + Math.floor(v / nx) * h;
     for (let d = 0; d < 8; d++) {
       if (!((bits >> d) & 1)) continue;
       const u = v + DX[d] + DY[d] * nx;
-      const fac = ((pave[v] ? f : 1) + (pave[u] ? f : 1)) * 0.5;
+      const len = STEP[d] * h;
+      const paved = paveNear[v] || paveNear[u]
+        ? pavedLengthOn(pavement, vx, vy, vx + DX[d] * h, vy + DY[d] * h)
+        : pave[v] ? len : 0;
       const c = d < 4 ? cross[v * 4 + d] : cross[u * 4 + d - 4];
-      cost[v * 8 + d] = STEP[d] * h * fac + c * params.crossingPenalty;
+      cost[v * 8 + d] = len + (f - 1) * paved + c * params.crossingPenalty;
     }
   }
 
   return {
     params, x0, y0, h, nx, ny, n, free, moves, pave, cross, cost, blockers, grown,
     obstacles: new EdgeIndex(grown, Math.max(4 * h, 1e-9)), boundary: b,
-    pavement: new EdgeIndex(pavementRings, Math.max(4 * h, 1e-9)), crossLines,
+    pavement, crossLines,
   };
 }
 
@@ -275,4 +283,21 @@ export function bendTable(bendPenalty: number): Float64Array {
 export function segmentClear(g: RoutingGrid, ax: number, ay: number, bx: number, by: number): boolean {
   if (g.blockers.touches(ax, ay, bx, by)) return false;
   return !g.obstacles.inside(ax, ay) && insideRing(g.boundary, ax, ay);
+}
+
+/** Length of a-b inside the rings of `index` (even-odd, split at every edge crossing). */
+export function pavedLengthOn(index: EdgeIndex, ax: number, ay: number, bx: number, by: number): number {
+  if (index.count === 0) return 0;
+  const ts = [0, 1];
+  index.crossings(ax, ay, bx, by, ts);
+  ts.sort((p, q) => p - q);
+  const len = Math.hypot(bx - ax, by - ay);
+  let paved = 0;
+  for (let i = 0; i + 1 < ts.length; i++) {
+    const t0 = ts[i], t1 = ts[i + 1];
+    if (t1 - t0 <= 0) continue;
+    const tm = (t0 + t1) / 2;
+    if (index.inside(ax + (bx - ax) * tm, ay + (by - ay) * tm)) paved += (t1 - t0) * len;
+  }
+  return paved;
 }

@@ -335,6 +335,8 @@ export class SiteSteiner {
         if (signal?.aborted || this.over()) return gains;
         let intact = true;
         for (let i = 0; i < kp.dirs.length && intact; i++) intact = ((this.adj[kp.nodes[i]] >> kp.dirs[i]) & 1) === 1;
+        // Still a key path: an earlier exchange may have branched off an interior node.
+        for (let i = 1; i < kp.nodes.length - 1 && intact; i++) intact = popcount8(this.adj[kp.nodes[i]]) === 2;
         if (!intact) continue;
         this.setPath(kp.nodes, kp.dirs, false);
         for (const v of this.treeList) this.mark[v] = 0;
@@ -510,11 +512,13 @@ export class SiteSteiner {
     const order = comps.map((_, k) => k).filter((k) => k !== holder);
     this.targetCost = () => 0;
     let failed = false;
-    for (const k of order) {
-      for (const v of comps[k]) this.mark[v] = 1;
+    for (let i = 0; i < order.length; i++) {
+      const k = order[i];
+      // Parts not yet joined are closed to the search, so no path runs through them (no cycles).
+      for (let j = i; j < order.length; j++) for (const v of comps[order[j]]) this.mark[v] = 1;
       for (const v of union) this.mark[v] = 2;
       const r = this.search(comps[k], null);
-      for (const v of comps[k]) this.mark[v] = 0;
+      for (let j = i; j < order.length; j++) for (const v of comps[order[j]]) this.mark[v] = 0;
       for (const v of union) this.mark[v] = 0;
       if (r.state < 0) { failed = true; break; }
       const a = this.addPathRaw(r.state);
@@ -576,6 +580,23 @@ export class SiteSteiner {
     this.rebuildTreeList();
   }
 
+  /** Internal check: every member's node is reached from the first one through the tree. */
+  private assertSpans(adj: Uint8Array, members: readonly number[]): void {
+    const start = this.anchors[members[0]].node;
+    const seen = new Set<number>([start]);
+    const stack = [start];
+    while (stack.length) {
+      const v = stack.pop()!;
+      for (let d = 0; d < 8; d++) {
+        if (!((adj[v] >> d) & 1)) continue;
+        const u = v + this.off[d];
+        if (!seen.has(u)) { seen.add(u); stack.push(u); }
+      }
+    }
+    const missing = members.filter((a) => !seen.has(this.anchors[a].node));
+    if (missing.length) throw new Error(`siteSteiner: internal error, tree misses anchors ${missing.join(', ')}`);
+  }
+
   /** Past the work budget (deterministic) or the wall-clock guard. */
   private over(): boolean {
     return this.work > this.workLimit || performance.now() > this.wallLimit;
@@ -621,6 +642,7 @@ export class SiteSteiner {
       if (opts.signal?.aborted || this.over()) break;
     }
     const adj = bestAdj!;
+    this.assertSpans(adj, members);
     const nodes: number[] = [];
     for (let v = 0; v < adj.length; v++) if (adj[v] !== 0) nodes.push(v);
     if (nodes.length === 0) nodes.push(this.anchors[members[0]].node);

@@ -7,33 +7,12 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { routeSite } from '../../../../core/route/site/routeSite';
 import { placeTerminals } from '../../../../core/site/placeTerminals';
-import type { PointInput, Polygon, Site } from '../../../../core/site/site';
+import type { Polygon, Site } from '../../../../core/site/site';
 import type { TrenchNetwork } from '../../../../core/network/trenchNetwork';
-import { building, makeSite, rect, line, settings } from './siteFixtures';
+import { obstaclePoints, obstacleSite, settings } from './siteFixtures';
 
 const here = (f: string): string => fileURLToPath(new URL(f, import.meta.url));
 const tmp = fileURLToPath(new URL('../../../.tmp/', import.meta.url));
-
-export function obstacleSite(): Site {
-  const b2: Polygon = { outer: rect(15, 55, 50, 75), holes: [rect(25, 62, 40, 70)], layer: 'BLDG' };
-  return makeSite({
-    boundary: rect(0, 0, 120, 80),
-    buildings: [building(10, 8, 40, 32), building(62, 8, 100, 28), b2],
-    keepOuts: [{ outer: Float64Array.from([70, 50, 95, 50, 82, 72]), holes: [], layer: 'POND' }],
-    pavements: [{ outer: rect(0, 40, 120, 46), holes: [], layer: 'ROAD' }],
-    crossings: [line([52, 0, 52, 38], 'FENCE')],
-  });
-}
-
-export const obstaclePoints: PointInput[] = [
-  { id: 'C', x: 116, y: 4, role: 'connection', utilities: ['power'] },
-  { id: 'X', x: 20, y: 20, role: 'connection', utilities: ['power'] },
-  { id: 'S0', x: 25, y: 32.4, role: 'service', utilities: ['power'] },
-  { id: 'S1', x: 61.7, y: 18, role: 'service', utilities: ['power'] },
-  { id: 'S2', x: 35, y: 54.5, role: 'service', utilities: ['power'] },
-  { id: 'S3', x: 100.3, y: 20, role: 'service', utilities: ['power'] },
-  { id: 'S4', x: 30, y: 62.2, role: 'service', utilities: ['power'] },
-];
 
 function shapelyCheck(site: Site, net: TrenchNetwork, name: string): Record<string, unknown> {
   mkdirSync(tmp, { recursive: true });

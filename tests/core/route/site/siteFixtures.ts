@@ -1,6 +1,6 @@
 // Hand-built sites for the router tests (no DXF reader involved). Local metres, frame at 0,0.
 
-import type { CrossingLine, Polygon, Site, Terminal } from '../../../../core/site/site';
+import type { CrossingLine, PointInput, Polygon, Site, Terminal } from '../../../../core/site/site';
 import { DEFAULT_ROUTE, type RouteSettings } from '../../../../core/settings';
 
 export function rect(x0: number, y0: number, x1: number, y1: number): Float64Array {
@@ -34,3 +34,26 @@ export function service(id: string, x: number, y: number, nx: number, ny: number
 export function settings(over: Partial<RouteSettings> = {}): RouteSettings {
   return { ...DEFAULT_ROUTE, ...over };
 }
+
+/** Three buildings (one with a courtyard), a keep-out, a road strip and a fence. */
+export function obstacleSite(): Site {
+  const b2: Polygon = { outer: rect(15, 55, 50, 75), holes: [rect(25, 62, 40, 70)], layer: 'BLDG' };
+  return makeSite({
+    boundary: rect(0, 0, 120, 80),
+    buildings: [building(10, 8, 40, 32), building(62, 8, 100, 28), b2],
+    keepOuts: [{ outer: Float64Array.from([70, 50, 95, 50, 82, 72]), holes: [], layer: 'POND' }],
+    pavements: [{ outer: rect(0, 40, 120, 46), holes: [], layer: 'ROAD' }],
+    crossings: [line([52, 0, 52, 38], 'FENCE')],
+  });
+}
+
+export const obstaclePoints: PointInput[] = [
+  { id: 'C', x: 116, y: 4, role: 'connection', utilities: ['power'] },
+  { id: 'X', x: 20, y: 20, role: 'connection', utilities: ['power'] },
+  { id: 'S0', x: 25, y: 32.4, role: 'service', utilities: ['power'] },
+  { id: 'S1', x: 61.7, y: 18, role: 'service', utilities: ['power'] },
+  { id: 'S2', x: 35, y: 54.5, role: 'service', utilities: ['power'] },
+  { id: 'S3', x: 100.3, y: 20, role: 'service', utilities: ['power'] },
+  { id: 'S4', x: 30, y: 62.2, role: 'service', utilities: ['power'] },
+];
+
