@@ -17,6 +17,12 @@ export interface ExactResult {
   cost: number;
 }
 
+/** Rough operation count of steinerExact (split merges plus one Dijkstra per subset). */
+export function exactWork(n: number, m: number, k: number): number {
+  if (k <= 1) return 0;
+  return (3 ** (k - 1) / 2) * n + 2 ** (k - 1) * (2 * m + n * Math.log2(n + 2));
+}
+
 /** True when the table for `k` distinct terminals on `n` nodes stays within `maxStates` entries. */
 export function exactFits(n: number, k: number, maxStates = EXACT_DEFAULT_MAX_STATES): boolean {
   if (k <= 1) return true;

@@ -82,6 +82,14 @@ export class LocalSearch {
           paths = this.keyPaths(isTerminal, g);
         }
       }
+      // Steiner-vertex elimination (MST over the tree's vertices minus one Steiner vertex)
+      if (!stop()) {
+        const next = this.eliminateVertices(tree, isTerminal, g, stop);
+        if (next !== tree) {
+          tree = next;
+          improved = true;
+        }
+      }
       // Steiner-vertex insertion (MST over the tree's vertices plus one outside vertex)
       if (!stop()) {
         const next = this.insertVertices(tree, isTerminal, g, stop);
@@ -127,6 +135,69 @@ export class LocalSearch {
   private clearIndex(): void {
     for (const v of this.verts) this.localId[v] = -1;
     this.verts = [];
+  }
+
+  /**
+   * Steiner-vertex elimination: for each Steiner vertex v of the tree, the MST of the subgraph
+   * induced by the other tree vertices (Kruskal over the induced edges sorted once); kept, after
+   * leaf pruning, when it spans them and is cheaper.
+   */
+  private eliminateVertices(tree: Int32Array, isTerminal: Uint8Array, g: Graph, stop: () => boolean): Int32Array {
+    const { offsets, adj, adjEdge, weight, edgeU, edgeV } = g;
+    const mark = this.label; // -1 between calls; 1 = tree vertex
+    const uf = this.pred;
+    let cur = tree;
+    let curCost = 0;
+    for (const e of cur) curCost += weight[e];
+    let verts = treeVertices(g, cur, this.scratch);
+    const induced = (): number[] => {
+      for (const v of verts) mark[v] = 1;
+      const out: number[] = [];
+      for (const u of verts)
+        for (let j = offsets[u]; j < offsets[u + 1]; j++) {
+          const v = adj[j];
+          if (mark[v] === 1 && u < v) out.push(adjEdge[j]);
+        }
+      for (const v of verts) mark[v] = -1;
+      return out.sort((a, b) => weight[a] - weight[b] || a - b);
+    };
+    let edges = induced();
+    const find = (x: number): number => {
+      while (uf[x] !== x) x = uf[x] = uf[uf[x]];
+      return x;
+    };
+    for (let qi = 0; qi < verts.length && !stop(); qi++) {
+      const v = verts[qi];
+      if (isTerminal[v]) continue;
+      for (const x of verts) uf[x] = x;
+      const chosen: number[] = [];
+      let cost = 0;
+      for (const e of edges) {
+        const a = edgeU[e];
+        const b = edgeV[e];
+        if (a === v || b === v) continue;
+        const ra = find(a);
+        const rb = find(b);
+        if (ra === rb) continue;
+        uf[ra] = rb;
+        chosen.push(e);
+        cost += weight[e];
+        if (cost >= curCost - EPS) break;
+      }
+      for (const x of verts) uf[x] = -1;
+      if (cost >= curCost - EPS || chosen.length !== verts.length - 2) continue;
+      const next = pruneLeaves(g, Int32Array.from(chosen), isTerminal, this.scratch);
+      let c1 = 0;
+      for (const e of next) c1 += weight[e];
+      if (c1 < curCost - EPS) {
+        cur = next;
+        curCost = c1;
+        verts = treeVertices(g, cur, this.scratch);
+        edges = induced();
+        qi = -1;
+      }
+    }
+    return cur;
   }
 
   /**

@@ -5,8 +5,9 @@
 import { Cancelled } from '../result';
 import { componentOf, edgeCost, withWeights, type Graph } from './graph';
 import { dualAscent } from './dualAscent';
-import { EXACT_DEFAULT_MAX_STATES, exactFits, steinerExact } from './exact';
+import { EXACT_DEFAULT_MAX_STATES, exactFits, exactWork, steinerExact } from './exact';
 import { LocalSearch } from './localSearch';
+import { recombine } from './recombine';
 import { makeRng } from './rng';
 import { shortestPathHeuristic, SphWorkspace } from './sph';
 import { mstPrune, TreeScratch, treeVertices } from './tree';
@@ -15,10 +16,15 @@ const DEFAULT_BUDGET_MS = 2000;
 const DEFAULT_MAX_ITERATIONS = 200;
 const FIRST_PLAIN_ROOTS = 4;
 const STALL_MIN = 16;
+const ELITE_SIZE = 8;
+const RECOMBINE_EVERY = 3;
+const RECOMBINE_ROOTS = 6;
 const PERTURB_MIN = 0.05;
-const PERTURB_MAX = 0.3;
+const PERTURB_MAX = 1.0;
 const LB_BUDGET_SHARE = 0.25;
-const DEFAULT_EXACT_MAX_TERMINALS = 8;
+const DEFAULT_EXACT_MAX_TERMINALS = 10;
+/** About 1 s of exact work on one core; beyond it the heuristic is the better use of time. */
+const EXACT_MAX_WORK = 1.2e8;
 const now = () => performance.now();
 
 export interface SteinerOptions {
@@ -28,8 +34,8 @@ export interface SteinerOptions {
   onProgress?: (fraction: number, bestCost: number) => void;
   signal?: { readonly aborted: boolean };
   /**
-   * Use the exact solver (Dreyfus–Wagner) when terminals <= this and 2^(terminals-1) * nodes
-   * <= 4,194,304 table entries. Default 8; 0 turns it off.
+   * Use the exact solver (Dreyfus–Wagner) when terminals <= this, 2^(terminals-1) * nodes
+   * <= 4,194,304 table entries and its estimated work (exactWork) <= 1.2e8. Default 10; 0 = off.
    */
   exactMaxTerminals?: number;
   /** Compute a lower bound (default true). */
@@ -66,12 +72,14 @@ export function normalizeTerminals(g: Graph, terminals: ArrayLike<number>): numb
  * Finds a Steiner tree connecting `terminals` in `g`.
  * Throws an Error naming the terminals that are not connected to the first one (use
  * splitReachableTerminals in graph.ts to drop them first). On cancellation (signal.aborted)
- * returns the best tree found so far; throws Cancelled (core/result.ts) only if no tree exists
- * yet, which cannot happen after the first shortest-path tree (a few ms). Deterministic for a
+ * returns the best tree found so far, or throws Cancelled (core/result.ts) when no tree exists
+ * yet (aborted during the exact solver, the lower bound or before the first shortest-path
+ * tree is done). Deterministic for a
  * given seed and budget as long as the time budget is not what ends the search (set
  * maxIterations and a generous timeBudgetMs for byte-identical runs across machines).
  */
 export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: SteinerOptions = {}): SteinerResult {
+  if (opts.signal?.aborted) throw new Cancelled();
   const terms = normalizeTerminals(g, terminals);
   if (terms.length <= 1) return { edges: new Int32Array(0), cost: 0, lowerBound: 0, gap: 0, optimal: true, iterations: 0 };
   const comp = componentOf(g);
@@ -80,24 +88,19 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
 
   const t0 = now();
   const exactMax = opts.exactMaxTerminals ?? DEFAULT_EXACT_MAX_TERMINALS;
-  if (terms.length <= exactMax && exactFits(g.n, terms.length, EXACT_DEFAULT_MAX_STATES)) {
+  if (terms.length <= exactMax && exactFits(g.n, terms.length, EXACT_DEFAULT_MAX_STATES) && exactWork(g.n, g.m, terms.length) <= EXACT_MAX_WORK) {
     const ex = steinerExact(g, terms, { signal: opts.signal });
     if (ex) {
       opts.onProgress?.(1, ex.cost);
       return { edges: ex.edges, cost: ex.cost, lowerBound: ex.cost, gap: 0, optimal: true, iterations: 1 };
     }
   }
+  if (opts.signal?.aborted) throw new Cancelled();
   const isTerminal = new Uint8Array(g.n);
   for (const t of terms) isTerminal[t] = 1;
   const budgetMs = opts.timeBudgetMs ?? DEFAULT_BUDGET_MS;
   const maxIter = opts.maxIterations ?? DEFAULT_MAX_ITERATIONS;
   const stop = () => opts.signal?.aborted === true || now() - t0 > budgetMs;
-  // lower bound first: a proven-optimal tree ends the search early
-  let lowerBound = 0;
-  if (opts.lowerBound !== false) {
-    const da = dualAscent(g, terms, terms[0], () => opts.signal?.aborted === true || now() - t0 > budgetMs * LB_BUDGET_SHARE);
-    lowerBound = da.lowerBound;
-  }
   const ws = new SphWorkspace(g.n);
   const scratch = new TreeScratch(g);
   const ls = new LocalSearch(g);
@@ -106,6 +109,8 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
   let bestCost = Infinity;
   let iterations = 0;
   let stall = 0;
+  // elite pool of distinct trees, cheapest first, for recombination
+  const elite: { edges: Int32Array; cost: number; key: string }[] = [];
   const consider = (tree: Int32Array) => {
     const c = edgeCost(g, tree);
     if (c < bestCost - 1e-9) {
@@ -113,18 +118,49 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
       best = tree;
       stall = 0;
     } else stall++;
+    const key = Array.from(tree).sort((a, b) => a - b).join(',');
+    if (elite.some((x) => x.key === key)) return;
+    if (elite.length >= ELITE_SIZE && c >= elite[elite.length - 1].cost) return;
+    elite.push({ edges: tree, cost: c, key });
+    elite.sort((a, b) => a.cost - b.cost || (a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
+    if (elite.length > ELITE_SIZE) elite.pop();
   };
+  // a first tree right away, so that cancellation always has something to return
+  const first = shortestPathHeuristic(g, terms, isTerminal, terms[0], ws);
+  if (!first) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
+  consider(mstPrune(g, treeVertices(g, first, scratch), isTerminal, scratch));
+  stall = 0;
+  // lower bound next: a proven-optimal tree ends the search early
+  let lowerBound = 0;
+  if (opts.lowerBound !== false) {
+    const da = dualAscent(g, terms, terms[0], () => opts.signal?.aborted === true || now() - t0 > budgetMs * LB_BUDGET_SHARE);
+    lowerBound = da.lowerBound;
+  }
   const pert = new Float64Array(g.m);
   const pg = withWeights(g, pert);
   const stallLimit = Math.max(STALL_MIN, terms.length);
   for (let it = 0; it < maxIter; it++) {
+    if (!best && opts.signal?.aborted) throw new Cancelled();
     if (best && (stop() || stall >= stallLimit || bestCost <= lowerBound + 1e-9 * bestCost)) break;
     let tree: Int32Array | null;
-    if (it < Math.min(terms.length, FIRST_PLAIN_ROOTS)) {
-      // plain SPH from the first few terminals
-      tree = shortestPathHeuristic(g, terms, isTerminal, terms[it], ws);
-      if (!tree) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
+    if (it >= FIRST_PLAIN_ROOTS && elite.length >= 2 && it % RECOMBINE_EVERY === 0) {
+      // recombine the best tree with one or two other elite trees
+      const parents = [elite[0].edges];
+      const others = elite.slice(1);
+      for (let k = 0; k < 2 && others.length > 0; k++) parents.push(others.splice(Math.floor(rng() * others.length), 1)[0].edges);
+      const roots: number[] = [];
+      for (let k = 0; k < Math.min(terms.length, RECOMBINE_ROOTS); k++) roots.push(terms[Math.floor(rng() * terms.length)]);
+      tree = recombine(g, parents, terms, roots, stop);
+      if (!tree) throw new Error('solveSteiner: internal error, recombination lost a terminal');
       tree = mstPrune(g, treeVertices(g, tree, scratch), isTerminal, scratch);
+    } else if (it < Math.min(terms.length, FIRST_PLAIN_ROOTS)) {
+      // plain SPH from the first few terminals (the first one is already built)
+      if (it === 0) tree = best!;
+      else {
+        tree = shortestPathHeuristic(g, terms, isTerminal, terms[it], ws);
+        if (!tree) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
+        tree = mstPrune(g, treeVertices(g, tree, scratch), isTerminal, scratch);
+      }
     } else {
       // SPH on randomly perturbed weights from a random terminal, to leave the local optimum
       const amp = PERTURB_MIN + (PERTURB_MAX - PERTURB_MIN) * rng();
@@ -132,9 +168,9 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
       tree = shortestPathHeuristic(pg, terms, isTerminal, terms[Math.floor(rng() * terms.length)], ws);
       if (!tree) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
       tree = mstPrune(pg, treeVertices(g, tree, scratch), isTerminal, scratch);
-      tree = ls.improve(tree, isTerminal, () => opts.signal?.aborted === true, pg);
+      tree = ls.improve(tree, isTerminal, stop, pg);
     }
-    tree = ls.improve(tree, isTerminal, () => opts.signal?.aborted === true, g);
+    tree = ls.improve(tree, isTerminal, stop, g);
     iterations++;
     consider(tree);
     opts.onProgress?.(Math.min(1, Math.max((now() - t0) / budgetMs, (it + 1) / maxIter, stall / stallLimit)), bestCost);

@@ -24,14 +24,20 @@ describe('steinerExact', () => {
     }
   });
 
-  it('solves 10 terminals on a 3,000-node grid with holes in under 1 s', () => {
+  it('solves 10 terminals on a 3,000-node grid with holes in under 1 s of CPU time', () => {
+    // CPU time of this process: the 2 cores are shared with other work, so wall time would
+    // measure the neighbours; the wall time is printed alongside.
     const { g, free } = gridWithHoles(42, 60, 50, 6, 9);
     const terms = pickTerminals(5, free, 10);
+    const c0 = process.cpuUsage();
     const t0 = performance.now();
     const r = steinerExact(g, terms, { maxStates: 1 << 22 })!;
-    const ms = performance.now() - t0;
+    const wallMs = performance.now() - t0;
+    const cpu = process.cpuUsage(c0);
+    const cpuMs = (cpu.user + cpu.system) / 1000;
+    console.log(`exact, 10 terminals, ${g.n} nodes: ${cpuMs.toFixed(0)} ms CPU, ${wallMs.toFixed(0)} ms wall`);
     expect(isSteinerTree(g, r.edges, terms, r.cost)).toBe(true);
-    expect(ms).toBeLessThan(1000);
+    expect(cpuMs).toBeLessThan(1000);
   });
 
   it('refuses tables above maxStates instead of running out of memory', () => {
