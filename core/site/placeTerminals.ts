@@ -83,7 +83,7 @@ export function placeTerminals(site: Site, points: readonly PointInput[], opts: 
           message: `service ${p.id} is ${w.dist.toFixed(2)} ${site.units} from the nearest building wall (snap tolerance ${opts.snapTolerance} ${site.units}); kept where given, not snapped`,
         });
       } else {
-        base.x = w.x; base.y = w.y; base.nx = w.nx; base.ny = w.ny;
+        base.x = w.x; base.y = w.y; base.nx = w.nx + 0; base.ny = w.ny + 0; // + 0 turns -0 into 0
         base.building = w.building; base.snapDistance = w.dist;
       }
     }
