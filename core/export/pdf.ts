@@ -109,6 +109,19 @@ export async function writeReportPdf(t: TakeOff, net: TrenchNetwork, meta: Sched
   for (const u of t.utilities) {
     row(doc, [u.label, String(u.services), fmt(u.trenchLength), fmt(u.conduitLength), `${u.elbows90}/${u.elbows45}/${u.elbows22}`, String(u.tees), String(u.pullBoxes), fmt(u.tracer)], ucols, ualign);
   }
+  if (t.pullBoxes.length) {
+    doc.moveDown(0.6);
+    heading(doc, 'Pull boxes (numbered on the plan)');
+    const bcols = [30, 90, 90, 90, 232];
+    const balign: ('left' | 'right')[] = ['right', 'right', 'right', 'left', 'left'];
+    doc.font('Helvetica-Bold').fontSize(8);
+    row(doc, ['#', 'x (drawing)', 'y (drawing)', 'Utilities', 'Reason'], bcols, balign);
+    doc.font('Helvetica');
+    const f = t.frame;
+    t.pullBoxes.forEach((b, i) => {
+      row(doc, [String(i + 1), fmt(b.x / f.scale + f.originX, 2), fmt(b.y / f.scale + f.originY, 2), b.utilities.join(', '), b.reason], bcols, balign);
+    });
+  }
   if (t.warnings.length) {
     doc.moveDown(0.6);
     heading(doc, 'Warnings');
@@ -231,7 +244,10 @@ function drawPlan(doc: PDFKit.PDFDocument, t: TakeOff, net: TrenchNetwork, site:
       doc.lineWidth(0.8).circle(px(n.x), py(n.y), 2.5).fillAndStroke('white', 'black');
     }
   }
-  for (const b of t.pullBoxes) doc.lineWidth(0.8).rect(px(b.x) - 3, py(b.y) - 3, 6, 6).fillAndStroke('white', '#202020');
+  t.pullBoxes.forEach((b, i) => {
+    doc.lineWidth(0.8).rect(px(b.x) - 3, py(b.y) - 3, 6, 6).fillAndStroke('white', '#202020');
+    doc.font('Helvetica').fontSize(5.5).fillColor('#202020').text(String(i + 1), px(b.x) + 4, py(b.y) - 9, { lineBreak: false });
+  });
   // Legend and scale bar along the bottom of the frame.
   let lx = x0 + 8;
   const ly = y0 + h - 10;
