@@ -38,6 +38,9 @@ export interface AppDebug {
   runs: number;
   /** Milliseconds spent building the drawing's graphics and the first frame. */
   firstDrawMs: number;
+  /** The view transform of the last frame (for tests that click on drawing coordinates). */
+  view: { scale: number; tx: number; ty: number; ox: number; oy: number } | null;
+  frames: number;
 }
 
 declare global {
@@ -53,7 +56,7 @@ const STEPS: { step: Step; label: string }[] = [
 ];
 
 async function boot(): Promise<void> {
-  const debug: AppDebug = { ready: false, drawingName: null, layerCount: 0, segmentCount: 0, lastError: null, runs: 0, firstDrawMs: 0 };
+  const debug: AppDebug = { ready: false, drawingName: null, layerCount: 0, segmentCount: 0, lastError: null, runs: 0, firstDrawMs: 0, view: null, frames: 0 };
   window.furrowDebug = debug;
   const platform = currentPlatform();
   const utilities = defaultSettings().utilities;
@@ -83,6 +86,8 @@ async function boot(): Promise<void> {
     return ({ 1: 'in', 2: 'ft', 4: 'mm', 5: 'cm', 6: 'm', 21: 'US ft' } as Record<number, string>)[code] ?? 'units';
   };
   view.onFrame((vp) => {
+    debug.view = { ...vp };
+    debug.frames++;
     const { length, px } = scaleBarLength(vp.scale);
     (scalebar.firstElementChild as HTMLElement).style.width = `${px.toFixed(1)}px`;
     (scalebar.lastElementChild as HTMLElement).textContent = `${length} ${unitName()}`;

@@ -70,7 +70,7 @@ export function renderTakeoffPanel(el: HTMLElement, deps: TakeoffPanelDeps): voi
   const holder = h('div', {}, table);
   el.append(h('p', { className: 'hint' }, `Click a column to sort; "Item" sorts by name, the first view groups by kind. Lengths in ${t.labels.length}, areas in ${t.labels.area}, volumes in ${t.labels.volume}. Prices are placeholders until you enter your own.`));
   el.append(holder);
-  el.append(h('div', { className: 'row-actions' }, h('button', { onclick: () => { sort = { key: 'group', desc: false }; rerender(); } }, 'Group by kind')));
+  el.append(h('div', { className: 'row-actions' }, h('button', { id: 'group-by-kind', onclick: () => { sort = { key: 'group', desc: false }; rerender(); } }, 'Group by kind')));
 
   el.append(h('h3', {}, 'Totals'));
   const tot = t.totals;
