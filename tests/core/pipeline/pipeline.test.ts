@@ -198,6 +198,15 @@ describe('R12 and R2000+ drawings in metres and feet, end to end', () => {
     const len = merged.polylines.filter((p: any) => p.layer === 'TRENCH-CENTERLINE')
       .reduce((a: number, p: any) => a + p.points.slice(1).reduce((b: number, q: number[], i: number) => b + Math.hypot(q[0] - p.points[i][0], q[1] - p.points[i][1]), 0), 0);
     expect(Math.abs(len - s.trench.length) / s.trench.length).toBeLessThan(0.001);
+    // our own reader (core/dxf/readDxf.ts) on the merged file
+    const d = readDxfBytes(r.value.files.routedDxf);
+    if (!d.ok) throw new Error(d.error.message);
+    let ours = 0;
+    for (const e of d.value.entities) {
+      if (e.kind !== 'polyline' || e.layer !== 'TRENCH-CENTERLINE') continue;
+      for (let i = 2; i < e.points.length; i += 2) ours += Math.hypot(e.points[i] - e.points[i - 2], e.points[i + 1] - e.points[i - 1]);
+    }
+    expect(Math.abs(ours - s.trench.length) / s.trench.length).toBeLessThan(0.001);
     const layersOnly = audit(r.value.files.trenchDxf, `ql-${ver}-${units}.dxf`);
     expect(layersOnly.errors).toBe(0);
     expect(layersOnly.insunits).toBe(units === 'm' ? 6 : 2);
