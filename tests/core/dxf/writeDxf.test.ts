@@ -215,6 +215,32 @@ describe('merging into unusual originals', () => {
     expect(a.counts['TRENCH-CENTERLINE']).toBeUndefined();
   });
 
+  it('adds $HANDSEED when an R2000 header lacks it, above every handle', () => {
+    const text = readFileSync(join(DIR, 'site-r2000-m.dxf'), 'latin1').replace(/ {2}9\r?\n\$HANDSEED\r?\n {2}5\r?\n[0-9A-Fa-f]+\r?\n/, '');
+    expect(text).not.toContain('$HANDSEED');
+    const r = writeMergedDxf(Buffer.from(text, 'latin1'), sampleInput('m'));
+    if (!r.ok) throw new Error(r.error.message);
+    const path = join(DIR, 'merged-noseed.dxf');
+    writeFileSync(path, r.value.bytes);
+    const a = audit(path);
+    // DXF reference: $HANDSEED must exceed every handle (raw tag check with ezdxf's tagger)
+    expect(a.errors).toBe(0);
+    expect(a.raw.handseed!).toBeGreaterThan(a.raw.maxHandle);
+    expect(a.raw.handlesUnique).toBe(true);
+  });
+
+  it.each([['r2000', 'cp1252'], ['r2018', 'utf-8']])('writes non-ASCII layer names into %s in its encoding (%s)', (ver) => {
+    const inp = { ...sampleInput('m'), layers: { centerline: 'TRANCHÉE-AXE', notes: 'TRANCHÉE-NOTES' } };
+    const r = writeMergedDxf(readFileSync(join(DIR, `site-${ver}-m.dxf`)), inp);
+    if (!r.ok) throw new Error(r.error.message);
+    const path = join(DIR, `merged-accents-${ver}.dxf`);
+    writeFileSync(path, r.value.bytes);
+    const a = audit(path); // ezdxf decodes by $DWGCODEPAGE (R2000) or UTF-8 (R2007 and later)
+    expect(a.errors).toBe(0);
+    expect(a.layers).toEqual(expect.arrayContaining(['TRANCHÉE-AXE', 'TRANCHÉE-NOTES']));
+    expect(a.counts['TRANCHÉE-AXE']).toBe(3);
+  });
+
   it('refuses a binary DXF and a file without an ENTITIES section, naming what to do', () => {
     const bin = writeMergedDxf(Buffer.from('AutoCAD Binary DXF\r\n\x1a\x00', 'latin1'), sampleInput('m'));
     expect(bin.ok ? '' : bin.error.kind).toBe('binary');
