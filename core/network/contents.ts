@@ -95,113 +95,161 @@ export function endDirection(p: Float64Array, atEnd: boolean): [number, number] 
   return [0, 0];
 }
 
-interface Rooted {
-  parentSeg: Map<number, number>;
-  dist: Map<number, number>;
+/** The tree walked from one point of connection, by node index (index into net.nodes). */
+export interface RootedTree {
+  connectionId: string;
+  root: number;
+  /** Segment index leading to each node from the root side; -1 at the root and off the tree. */
+  parentSeg: Int32Array;
+  /** Distance along the tree from the root (routing units); NaN off the tree. */
+  dist: Float64Array;
 }
 
-/** Walk the tree from a root: parent segment and distance along the tree for every reachable node. */
-function rootAt(net: TrenchNetwork, adj: Map<number, number[]>, root: number): Rooted {
-  const parentSeg = new Map<number, number>([[root, -1]]);
-  const dist = new Map<number, number>([[root, 0]]);
+/** Which point of connection feeds each service, per utility, and the trees walked from them. */
+export interface Feeds {
+  nodeIndex: Map<number, number>;
+  /** Node index at each end of each segment. */
+  segFrom: Int32Array;
+  segTo: Int32Array;
+  trees: Map<string, RootedTree>;
+  /** Per utility key: the fed services in terminal order. */
+  byUtility: Map<string, { serviceId: string; connectionId: string; node: number; dist: number }[]>;
+  warnings: string[];
+}
+
+function rootTree(net: TrenchNetwork, segFrom: Int32Array, segTo: Int32Array, adj: Int32Array[], root: number, connectionId: string): RootedTree {
+  const n = net.nodes.length;
+  const parentSeg = new Int32Array(n).fill(-1);
+  const dist = new Float64Array(n).fill(NaN);
+  dist[root] = 0;
   const stack = [root];
   while (stack.length) {
     const v = stack.pop() as number;
-    for (const si of adj.get(v) ?? []) {
-      const s = net.segments[si];
-      const w = s.from === v ? s.to : s.from;
-      if (parentSeg.has(w)) continue;
-      parentSeg.set(w, si);
-      dist.set(w, (dist.get(v) as number) + s.length);
+    for (const si of adj[v]) {
+      const w = segFrom[si] === v ? segTo[si] : segFrom[si];
+      if (!Number.isNaN(dist[w])) continue;
+      parentSeg[w] = si;
+      dist[w] = dist[v] + net.segments[si].length;
       stack.push(w);
     }
   }
-  return { parentSeg, dist };
+  return { connectionId, root, parentSeg, dist };
 }
 
-/** Every conduit run of every utility, with the services that could not be fed. */
-export function traceRuns(
-  net: TrenchNetwork,
-  terminals: Terminal[],
-  utilities: UtilitySetting[],
-): { runs: ConduitRun[]; warnings: string[] } {
+/** Feed every service from the nearest point of connection (along the tree) carrying each utility. */
+export function computeFeeds(net: TrenchNetwork, terminals: readonly Terminal[], utilities: readonly UtilitySetting[]): Feeds {
   const warnings: string[] = [];
-  const adj = adjacency(net);
+  const nodeIndex = new Map<number, number>();
+  net.nodes.forEach((n, i) => nodeIndex.set(n.id, i));
+  const segFrom = Int32Array.from(net.segments, (s) => nodeIndex.get(s.from) ?? -1);
+  const segTo = Int32Array.from(net.segments, (s) => nodeIndex.get(s.to) ?? -1);
+  const adj: Int32Array[] = [];
+  {
+    const lists: number[][] = net.nodes.map(() => []);
+    net.segments.forEach((_s, i) => {
+      if (segFrom[i] >= 0) lists[segFrom[i]].push(i);
+      if (segTo[i] >= 0) lists[segTo[i]].push(i);
+    });
+    for (const l of lists) adj.push(Int32Array.from(l));
+  }
   const nodeOf = new Map<string, number>();
-  for (const n of net.nodes) if (n.terminalId !== undefined && !nodeOf.has(n.terminalId)) nodeOf.set(n.terminalId, n.id);
+  net.nodes.forEach((n, i) => {
+    if (n.terminalId !== undefined && !nodeOf.has(n.terminalId)) nodeOf.set(n.terminalId, i);
+  });
   const known = new Set(utilities.map((u) => u.key));
   for (const t of terminals) {
     for (const k of t.utilities) if (!known.has(k)) warnings.push(`${t.id}: utility '${k}' has no settings; ignored`);
   }
-  const rooted = new Map<number, Rooted>();
-  const runs: ConduitRun[] = [];
+  const trees = new Map<string, RootedTree>();
+  const byUtility: Feeds['byUtility'] = new Map();
   for (const u of utilities) {
     const conns = terminals.filter((t) => t.role === 'connection' && t.utilities.includes(u.key) && nodeOf.has(t.id));
+    for (const c of conns) {
+      if (!trees.has(c.id)) trees.set(c.id, rootTree(net, segFrom, segTo, adj, nodeOf.get(c.id) as number, c.id));
+    }
+    const fed: { serviceId: string; connectionId: string; node: number; dist: number }[] = [];
     for (const t of terminals) {
       if (t.role !== 'service' || !t.utilities.includes(u.key)) continue;
-      const sNode = nodeOf.get(t.id);
-      if (sNode === undefined) continue; // unreachable terminals are reported by the router
-      let best: { c: Terminal; r: Rooted; d: number } | null = null;
+      const node = nodeOf.get(t.id);
+      if (node === undefined) continue; // unreachable terminals are reported by the router
+      let best: { id: string; d: number } | null = null;
       for (const c of conns) {
-        const cNode = nodeOf.get(c.id) as number;
-        let r = rooted.get(cNode);
-        if (!r) {
-          r = rootAt(net, adj, cNode);
-          rooted.set(cNode, r);
-        }
-        const d = r.dist.get(sNode);
-        if (d !== undefined && (best === null || d < best.d)) best = { c, r, d };
+        const d = (trees.get(c.id) as RootedTree).dist[node];
+        if (!Number.isNaN(d) && (best === null || d < best.d)) best = { id: c.id, d };
       }
       if (!best) {
         warnings.push(`${t.id}: no point of connection for ${u.key} is connected to it`);
         continue;
       }
+      fed.push({ serviceId: t.id, connectionId: best.id, node, dist: best.d });
+    }
+    byUtility.set(u.key, fed);
+  }
+  return { nodeIndex, segFrom, segTo, trees, byUtility, warnings };
+}
+
+/** Calls visit(segmentIndex) for each segment from a node up to the root of its tree. */
+export function walkToRoot(f: Feeds, tree: RootedTree, node: number, visit: (segment: number, childNode: number) => void): void {
+  let v = node;
+  for (let si = tree.parentSeg[v]; si >= 0; si = tree.parentSeg[v]) {
+    visit(si, v);
+    v = f.segFrom[si] === v ? f.segTo[si] : f.segFrom[si];
+  }
+}
+
+/** Every conduit run of every utility in full (segments and nodes in order), with warnings. */
+export function traceRuns(
+  net: TrenchNetwork,
+  terminals: Terminal[],
+  utilities: UtilitySetting[],
+  feeds: Feeds = computeFeeds(net, terminals, utilities),
+): { runs: ConduitRun[]; warnings: string[] } {
+  const runs: ConduitRun[] = [];
+  for (const u of utilities) {
+    for (const fed of feeds.byUtility.get(u.key) ?? []) {
+      const tree = feeds.trees.get(fed.connectionId) as RootedTree;
       const steps: ConduitRun['steps'] = [];
-      const nodes = [sNode];
-      let v = sNode;
-      for (;;) {
-        const si = best.r.parentSeg.get(v) as number;
-        if (si < 0) break;
-        const s = net.segments[si];
-        const w = s.from === v ? s.to : s.from;
-        steps.push({ segment: si, forward: s.from === w });
-        nodes.push(w);
-        v = w;
-      }
+      const nodes = [net.nodes[fed.node].id];
+      walkToRoot(feeds, tree, fed.node, (si, child) => {
+        const parent = feeds.segFrom[si] === child ? feeds.segTo[si] : feeds.segFrom[si];
+        steps.push({ segment: si, forward: feeds.segFrom[si] === parent });
+        nodes.push(net.nodes[parent].id);
+      });
       steps.reverse();
       nodes.reverse();
       runs.push({
-        utility: u.key, connectionId: best.c.id, serviceId: t.id,
-        connectionNode: nodes[0], serviceNode: sNode, steps, nodes, length: best.d,
+        utility: u.key, connectionId: fed.connectionId, serviceId: fed.serviceId,
+        connectionNode: nodes[0], serviceNode: net.nodes[fed.node].id, steps, nodes, length: fed.dist,
       });
     }
   }
-  return { runs, warnings };
+  return { runs, warnings: feeds.warnings };
 }
 
-/** Contents of every segment (same order as net.segments). */
-export function contentsFromRuns(net: TrenchNetwork, runs: ConduitRun[], utilities: UtilitySetting[]): SegmentContents[] {
+/** Contents of every segment (same order as net.segments), from the feeds. */
+export function contentsFromFeeds(net: TrenchNetwork, feeds: Feeds, utilities: readonly UtilitySetting[]): SegmentContents[] {
   const out: SegmentContents[] = net.segments.map((s) => ({ segmentId: s.id, loads: [], byUtility: {} }));
   for (const u of utilities) {
-    const per = net.segments.map(() => ({ services: [] as string[], connections: new Set<string>() }));
-    for (const r of runs) {
-      if (r.utility !== u.key) continue;
-      for (const st of r.steps) {
-        per[st.segment].services.push(r.serviceId);
-        per[st.segment].connections.add(r.connectionId);
-      }
+    const services: (string[] | undefined)[] = new Array(net.segments.length);
+    const conns: (Set<string> | undefined)[] = new Array(net.segments.length);
+    for (const fed of feeds.byUtility.get(u.key) ?? []) {
+      walkToRoot(feeds, feeds.trees.get(fed.connectionId) as RootedTree, fed.node, (si) => {
+        (services[si] ??= []).push(fed.serviceId);
+        (conns[si] ??= new Set()).add(fed.connectionId);
+      });
     }
-    per.forEach((p, i) => {
-      if (p.services.length === 0) return;
-      const conduits = u.kind === 'radial' ? u.perService * p.services.length : 1;
-      out[i].loads.push({ utility: u.key, conduits, services: p.services, connections: [...p.connections].sort() });
+    for (let i = 0; i < net.segments.length; i++) {
+      const list = services[i];
+      if (!list) continue;
+      const conduits = u.kind === 'radial' ? u.perService * list.length : 1;
+      out[i].loads.push({ utility: u.key, conduits, services: list, connections: [...(conns[i] as Set<string>)].sort() });
       out[i].byUtility[u.key] = conduits;
-    });
+    }
   }
   return out;
 }
 
 /** Per segment: utility → conduit count, and the runs (services, connections) per utility. */
 export function computeContents(net: TrenchNetwork, terminals: Terminal[], utilities: UtilitySetting[]): SegmentContents[] {
-  return contentsFromRuns(net, traceRuns(net, terminals, utilities).runs, utilities);
+  return contentsFromFeeds(net, computeFeeds(net, terminals, utilities), utilities);
 }

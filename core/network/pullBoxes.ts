@@ -143,10 +143,9 @@ export function placePullBoxesWithWarnings(
         const last = pts.length === 4;
         return { dx, dy, lenM: len, riser: last && endsHere(si, seg.from === v ? seg.to : seg.from) ? lim.riserDeg : 0 };
       }
+      // A run ends where the utility's subtree ends: a leaf carrying it is a service's node.
       function endsHere(si: number, w: number): boolean {
-        const n = nodeById.get(w);
-        const l = loadOf(si);
-        if (!n || !l || n.terminalId === undefined || !l.services.includes(n.terminalId)) return false;
+        if (!loadOf(si)) return false;
         return !(adj.get(w) ?? []).some((sj) => sj !== si && carries(sj));
       }
       function walkSegment(si: number, v: number, start: State, dirIn: [number, number] | null): void {

@@ -8,8 +8,8 @@ import type { TrenchNetwork } from '../network/trenchNetwork';
 import type { LengthUnit } from '../units';
 import { M_PER_FT, M3_PER_YD3, FT2_PER_YD2, fromMetres, inchesToMetres, toMetres, unitLabels } from '../units';
 import { NOTICE_LINES, NOTICE_TITLE } from '../notice';
-import { adjacency, contentsFromRuns, endDirection, orientedPoints, traceRuns, turnDeg } from '../network/contents';
-import type { ConduitRun, SegmentContents } from '../network/contents';
+import { adjacency, computeFeeds, contentsFromFeeds, endDirection, orientedPoints, turnDeg, walkToRoot } from '../network/contents';
+import type { Feeds, RootedTree, SegmentContents } from '../network/contents';
 import { placePullBoxesWithWarnings } from '../network/pullBoxes';
 import type { PullBox } from '../network/pullBoxes';
 import { trenchSection } from './section';
@@ -129,10 +129,9 @@ export function computeTakeOff(net: TrenchNetwork, terminals: Terminal[], settin
   const vol = (m3: number): number => (units === 'm' ? m3 : m3 / M3_PER_YD3);
   const lab = unitLabels(units);
 
-  const traced = traceRuns(net, terminals, utils);
-  warnings.push(...traced.warnings);
-  const runs = traced.runs;
-  const contents = contentsFromRuns(net, runs, utils);
+  const feeds = computeFeeds(net, terminals, utils);
+  warnings.push(...feeds.warnings);
+  const contents = contentsFromFeeds(net, feeds, utils);
   const pulled = placePullBoxesWithWarnings(net, contents, utils, { countRisers: tr.countRiserBends ?? true });
   warnings.push(...pulled.warnings);
   const boxes = pulled.boxes;
@@ -219,8 +218,8 @@ export function computeTakeOff(net: TrenchNetwork, terminals: Terminal[], settin
   const teesByUtility = new Map<string, number>();
   for (const u of utils) {
     const segIdx = contents.map((c, i) => (c.loads.some((l) => l.utility === u.key) ? i : -1)).filter((i) => i >= 0);
-    const uRuns = runs.filter((r) => r.utility === u.key);
-    if (uRuns.length === 0) continue;
+    const fed = feeds.byUtility.get(u.key) ?? [];
+    if (fed.length === 0) continue;
     let trenchM = 0, conduitM = 0;
     for (const i of segIdx) {
       const l = contents[i].loads.find((x) => x.utility === u.key);
@@ -232,14 +231,13 @@ export function computeTakeOff(net: TrenchNetwork, terminals: Terminal[], settin
     let tees = 0;
     let ends: number;
     if (u.kind === 'radial') {
-      ends = 2 * uRuns.length * u.perService;
+      ends = 2 * fed.length * u.perService;
       conduitM += ends * stubM;
-      const boxAt = boxLookup(boxes, u.key);
-      for (const r of uRuns) addElbows(elbows, runElbows(net, r, boxAt), u.perService);
+      addElbows(elbows, radialElbows(net, feeds, fed, boxLookup(boxes, u.key)), u.perService);
       addElbows(elbows, { e90: 1, e45: 0, e22: 0 }, ends); // riser sweep at each end of each conduit
     } else {
       const endNodes = new Set<number>();
-      for (const r of uRuns) { endNodes.add(r.connectionNode); endNodes.add(r.serviceNode); }
+      for (const f of fed) { endNodes.add(f.node); endNodes.add((feeds.trees.get(f.connectionId) as RootedTree).root); }
       ends = endNodes.size;
       conduitM += ends * stubM;
       const inSub = new Set(segIdx);
@@ -262,7 +260,7 @@ export function computeTakeOff(net: TrenchNetwork, terminals: Terminal[], settin
     const tracerM = u.tracer ? trenchM + ends * stubM : 0;
     utilRows.push({
       utility: u.key, label: u.label, color: u.color, kind: u.kind, sizeIn: u.diameterIn,
-      services: uRuns.length, trenchLength: r3(len(trenchM)), conduitLength: r3(len(conduitM)),
+      services: fed.length, trenchLength: r3(len(trenchM)), conduitLength: r3(len(conduitM)),
       elbows90: elbows.e90, elbows45: elbows.e45, elbows22: elbows.e22, tees, pullBoxes: nBoxes,
       tracer: r3(len(tracerM)), tape: r3(len(trenchM)),
     });
@@ -342,25 +340,47 @@ function boxLookup(boxes: PullBox[], utility: string): { nodes: Set<number>; poi
   return { nodes, points };
 }
 
-/** Elbows of one conduit along its run; no elbow where the conduit passes through a pull box. */
-function runElbows(net: TrenchNetwork, run: ConduitRun, boxAt: { nodes: Set<number>; points: Set<string> }): ElbowCount {
+/**
+ * Elbows of all conduits of one radial utility (one conduit per run): per segment, its bends times
+ * the runs through it, and at each node the turn from the segment toward the connection into it —
+ * every run through a segment arrives by that segment in a tree. None where a pull box sits.
+ */
+function radialElbows(net: TrenchNetwork, f: Feeds, fed: { connectionId: string; node: number }[], boxAt: { nodes: Set<number>; points: Set<string> }): ElbowCount {
   const out = zeroElbows();
-  let prev: [number, number] | null = null;
-  run.steps.forEach((st, k) => {
-    const pts = orientedPoints(net.segments[st.segment], st.forward);
-    const first = endDirection(pts, false);
-    if (prev && !boxAt.nodes.has(run.nodes[k])) addElbows(out, elbowsForBend(turnDeg(prev[0], prev[1], first[0], first[1])));
-    const n = pts.length / 2;
-    let dir: [number, number] | null = null;
-    for (let i = 0; i + 1 < n; i++) {
-      const dx = pts[2 * i + 2] - pts[2 * i];
-      const dy = pts[2 * i + 3] - pts[2 * i + 1];
-      if (dx === 0 && dy === 0) continue;
-      if (dir && !boxAt.points.has(`${pts[2 * i]} ${pts[2 * i + 1]}`)) addElbows(out, elbowsForBend(turnDeg(dir[0], dir[1], dx, dy)));
-      dir = [dx, dy];
+  const byConn = new Map<string, Int32Array>();
+  for (const x of fed) {
+    let cnt = byConn.get(x.connectionId);
+    if (!cnt) byConn.set(x.connectionId, (cnt = new Int32Array(net.segments.length)));
+    const c = cnt;
+    walkToRoot(f, f.trees.get(x.connectionId) as RootedTree, x.node, (si) => { c[si]++; });
+  }
+  for (const [cid, cnt] of byConn) {
+    const tree = f.trees.get(cid) as RootedTree;
+    for (let si = 0; si < cnt.length; si++) {
+      const k = cnt[si];
+      if (k === 0) continue;
+      const seg = net.segments[si];
+      const forward = tree.parentSeg[f.segTo[si]] === si; // walked from → to, away from the connection
+      const parent = forward ? f.segFrom[si] : f.segTo[si];
+      const pts = orientedPoints(seg, forward);
+      const n = pts.length / 2;
+      let dir: [number, number] | null = null;
+      for (let i = 0; i + 1 < n; i++) {
+        const dx = pts[2 * i + 2] - pts[2 * i];
+        const dy = pts[2 * i + 3] - pts[2 * i + 1];
+        if (dx === 0 && dy === 0) continue;
+        if (dir && !boxAt.points.has(`${pts[2 * i]} ${pts[2 * i + 1]}`)) addElbows(out, elbowsForBend(turnDeg(dir[0], dir[1], dx, dy)), k);
+        dir = [dx, dy];
+      }
+      const inSeg = tree.parentSeg[parent];
+      if (inSeg >= 0 && !boxAt.nodes.has(net.nodes[parent].id)) {
+        const into = orientedPoints(net.segments[inSeg], tree.parentSeg[f.segTo[inSeg]] === inSeg);
+        const a = endDirection(into, true);
+        const b = endDirection(pts, false);
+        addElbows(out, elbowsForBend(turnDeg(a[0], a[1], b[0], b[1])), k);
+      }
     }
-    prev = endDirection(pts, true);
-  });
+  }
   return out;
 }
 
