@@ -1,7 +1,7 @@
 // Take-off benchmark: a comb-shaped network (a trunk with a bend every 10 junctions, one 15 m
 // branch per service) for growing service counts. One JSON line per case: take-off and schedule
 // times, and as a peer measured in the same process the least any take-off must do — walking
-// every service's path back to the connection once per utility and summing lengths.
+// every service's path back to the connection once per utility and summing lengths. Times are CPU ms.
 //   npx tsx tests/bench/takeoff.ts [--max 2000]
 import { computeTakeOff } from '../../core/takeoff/takeoff';
 import { writeTakeOffCsv } from '../../core/export/csv';
@@ -36,7 +36,8 @@ function comb(n: number): { net: TrenchNetwork; terms: ReturnType<typeof termina
   return { net: handNetwork(nodes, segs), terms };
 }
 
-const time = async (f: () => unknown): Promise<number> => { const t = performance.now(); await f(); return performance.now() - t; };
+// CPU time of this process (user + system), steadier than wall time on a shared machine.
+const time = async (f: () => unknown): Promise<number> => { const c = process.cpuUsage(); await f(); const d = process.cpuUsage(c); return (d.user + d.system) / 1000; };
 
 for (const n of [50, 200, max].filter((v, i, a) => a.indexOf(v) === i)) {
   const { net, terms } = comb(n);
