@@ -3,20 +3,23 @@
 // only be improved from an earlier bucket, so entries are final when their bucket is reached and
 // the order inside a bucket does not matter. Entries live in typed-array pools; stale entries
 // are skipped by the caller (lazy deletion). Pops within a bucket are last-in first-out, so the
-// order is deterministic.
+// order is deterministic. Under A* (keys = cost + an admissible estimate) arcs may have zero
+// reduced cost, so the caller re-expands an entry whose cost later drops (label correcting).
 
 export class BucketQueue {
   private head = new Int32Array(1024).fill(-1);
   private poolState = new Int32Array(1 << 16);
   private poolKey = new Float64Array(1 << 16);
   private poolNext = new Int32Array(1 << 16);
+  private poolG = new Float64Array(1 << 16);
   private poolSize = 0;
   private inv = 1;
   private cur = 0;
   private maxBucket = -1;
   size = 0;
-  /** Key of the entry returned by the last pop. */
+  /** Key and path cost of the entry returned by the last pop. */
   lastKey = 0;
+  lastG = 0;
 
   /** Empties the queue; `width` must not exceed the least arc cost. */
   reset(width: number): void {
@@ -34,7 +37,8 @@ export class BucketQueue {
     return this.cur / this.inv;
   }
 
-  push(key: number, state: number): void {
+  /** `g`: the path cost carried with the entry (defaults to the key; differs under A*). */
+  push(key: number, state: number, g = key): void {
     const b = Math.floor(key * this.inv);
     if (b >= this.head.length) {
       let len = this.head.length;
@@ -48,10 +52,12 @@ export class BucketQueue {
       const s = new Int32Array(n); s.set(this.poolState); this.poolState = s;
       const k = new Float64Array(n); k.set(this.poolKey); this.poolKey = k;
       const x = new Int32Array(n); x.set(this.poolNext); this.poolNext = x;
+      const gg = new Float64Array(n); gg.set(this.poolG); this.poolG = gg;
     }
     const e = this.poolSize++;
     this.poolState[e] = state;
     this.poolKey[e] = key;
+    this.poolG[e] = g;
     this.poolNext[e] = this.head[b];
     this.head[b] = e;
     if (b > this.maxBucket) this.maxBucket = b;
@@ -67,6 +73,7 @@ export class BucketQueue {
     this.head[this.cur] = this.poolNext[e];
     this.size--;
     this.lastKey = this.poolKey[e];
+    this.lastG = this.poolG[e];
     return this.poolState[e];
   }
 }

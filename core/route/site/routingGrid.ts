@@ -195,7 +195,7 @@ export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
       const u = v + DX[d] + DY[d] * nx;
       const len = STEP[d] * h;
       const paved = paveNear[v] || paveNear[u]
-        ? pavedLengthOn(pavement, vx, vy, vx + DX[d] * h, vy + DY[d] * h)
+        ? pavedMove(pavement, pave[v], pave[u], vx, vy, vx + DX[d] * h, vy + DY[d] * h)
         : pave[v] ? len : 0;
       const c = d < 4 ? cross[v * 4 + d] : cross[u * 4 + d - 4];
       cost[v * 8 + d] = len + (f - 1) * paved + c * params.crossingPenalty;
@@ -293,11 +293,28 @@ export function pavedLengthOn(index: EdgeIndex, ax: number, ay: number, bx: numb
   ts.sort((p, q) => p - q);
   const len = Math.hypot(bx - ax, by - ay);
   let paved = 0;
+  // Inside status flips at each proper crossing; one test fixes the first interval. Coincident
+  // crossings (through a vertex) are re-tested rather than flipped twice.
+  let status: boolean | null = null;
   for (let i = 0; i + 1 < ts.length; i++) {
     const t0 = ts[i], t1 = ts[i + 1];
-    if (t1 - t0 <= 0) continue;
-    const tm = (t0 + t1) / 2;
-    if (index.inside(ax + (bx - ax) * tm, ay + (by - ay) * tm)) paved += (t1 - t0) * len;
+    if (t1 - t0 <= 1e-12) { status = null; continue; }
+    if (status === null) {
+      const tm = (t0 + t1) / 2;
+      status = index.inside(ax + (bx - ax) * tm, ay + (by - ay) * tm);
+    } else status = !status;
+    if (status) paved += (t1 - t0) * len;
   }
   return paved;
+}
+
+const scratchTs: number[] = [];
+
+/** Paved length of a short grid move: ends agree and nothing is crossed → all or nothing. */
+function pavedMove(index: EdgeIndex, pa: number, pb: number, ax: number, ay: number, bx: number, by: number): number {
+  scratchTs.length = 0;
+  index.crossings(ax, ay, bx, by, scratchTs);
+  const len = Math.hypot(bx - ax, by - ay);
+  if (scratchTs.length === 0 && pa === pb) return pa ? len : 0;
+  return pavedLengthOn(index, ax, ay, bx, by);
 }

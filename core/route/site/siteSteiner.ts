@@ -47,6 +47,10 @@ const OPP = (d: number): number => (d + 4) & 7;
 
 /** Settled states per millisecond of time budget (a conservative single-core rate). */
 export const STATES_PER_MS = 5000;
+/** A* guides a construction round while at most this many terminals are left (the estimate scans them all). */
+const A_STAR_MAX_GOALS = 24;
+/** Margin, in cells, around the removed paths where a star exchange looks for its hub. */
+const STAR_MARGIN = 8;
 
 function popcount8(b: number): number {
   b = b - ((b >> 1) & 0x55);
@@ -123,12 +127,40 @@ export class SiteSteiner {
     });
   }
 
-  /** Dijkstra over states from every source node (mark 1) to the cheapest target (mark 2). */
-  private search(sources: readonly number[], seedBend: ((v: number, d: number) => number) | null, limit = Infinity): { state: number; cost: number } {
+  /**
+   * Cheapest state path from every source node (mark 1) to a target (mark 2): Dijkstra, or A*
+   * when `goals` lists the target nodes (estimate: octilinear or rectilinear distance to the
+   * nearest goal at the cheapest surface — a lower bound on any path's cost).
+   */
+  private search(sources: readonly number[], seedBend: ((v: number, d: number) => number) | null, limit = Infinity, goals: readonly number[] | null = null): { state: number; cost: number } {
     const g = this.g, off = this.off, bend = this.bend, mask = this.mask;
     const dist = this.dist, pred = this.pred, stamp = this.stamp, mark = this.mark, heap = this.heap, cost = g.cost;
     const ep = ++this.epoch;
     heap.reset(this.width);
+    const nx = g.nx;
+    const gx = goals ? Int32Array.from(goals, (t) => t % nx) : null;
+    const gy = goals ? Int32Array.from(goals, (t) => Math.floor(t / nx)) : null;
+    const scale = 0.999 * g.h * Math.min(1, g.params.pavementFactor);
+    const diag = mask === 0xff ? Math.SQRT2 - 2 : -1; // octile: dx + dy + (√2 − 2)·min; rectilinear: dx + dy
+    // Many goals: distance to their bounding box instead (still a lower bound).
+    let bx0 = Infinity, by0 = Infinity, bx1 = -Infinity, by1 = -Infinity;
+    if (gx && gy) for (let i = 0; i < gx.length; i++) { bx0 = Math.min(bx0, gx[i]); bx1 = Math.max(bx1, gx[i]); by0 = Math.min(by0, gy[i]); by1 = Math.max(by1, gy[i]); }
+    const useBox = gx !== null && gx.length > A_STAR_MAX_GOALS;
+    const est = (v: number): number => {
+      if (!gx || !gy) return 0;
+      const x = v % nx, y = (v - x) / nx;
+      if (useBox) {
+        const dx = Math.max(0, bx0 - x, x - bx1), dy = Math.max(0, by0 - y, y - by1);
+        return (dx + dy + (diag > -1 ? diag * Math.min(dx, dy) : 0)) * scale;
+      }
+      let m = Infinity;
+      for (let i = 0; i < gx.length; i++) {
+        const dx = Math.abs(x - gx[i]), dy = Math.abs(y - gy[i]);
+        const o = dx + dy + (diag > -1 ? diag * Math.min(dx, dy) : 0);
+        if (o < m) m = o;
+      }
+      return m * scale;
+    };
     for (const v of sources) {
       const bits = g.moves[v] & mask;
       if (bits === 0) continue;
@@ -142,7 +174,7 @@ export class SiteSteiner {
           stamp[s] = ep;
           dist[s] = c;
           pred[s] = -1;
-          heap.push(c, s);
+          heap.push(c + est(u), s, c);
         }
       }
     }
@@ -150,9 +182,9 @@ export class SiteSteiner {
     for (;;) {
       const s = heap.pop();
       if (s < 0 || heap.floorKey() >= best) break;
+      const k = heap.lastG;
+      if (k > dist[s] || heap.lastKey >= best) continue;
       this.work++;
-      const k = heap.lastKey;
-      if (k > dist[s] || k >= best) continue;
       const v = s >> 3, d = s & 7;
       if (mark[v] === 2) {
         const cand = k + this.targetCost(v, d);
@@ -170,7 +202,7 @@ export class SiteSteiner {
           stamp[s2] = ep;
           dist[s2] = nk;
           pred[s2] = s;
-          heap.push(nk, s2);
+          heap.push(gx ? nk + est(u) : nk, s2, nk);
         }
       }
     }
@@ -231,7 +263,8 @@ export class SiteSteiner {
         for (const a of this.anchorsAt.get(v) ?? []) c = Math.min(c, this.arrive[a * 8 + OPP(d)]);
         return c === Infinity ? 0 : c;
       } : null;
-      const r = this.search(this.treeList, seedBend);
+      const goals = members.filter((a) => !this.joined[a]).map((a) => this.anchors[a].node);
+      const r = this.search(this.treeList, seedBend, Infinity, goals);
       for (const a of members) if (this.mark[this.anchors[a].node] === 2) this.mark[this.anchors[a].node] = 0;
       if (r.state < 0) throw new Error('siteSteiner: a terminal of the routed component was not reached');
       this.addPath(r.state);
@@ -340,10 +373,16 @@ export class SiteSteiner {
         if (!intact) continue;
         this.setPath(kp.nodes, kp.dirs, false);
         for (const v of this.treeList) this.mark[v] = 0;
-        const a = this.component(kp.nodes[0], 1);
-        const b = this.component(kp.nodes[kp.nodes.length - 1], 2);
+        let a = this.component(kp.nodes[0], 1);
+        let b = this.component(kp.nodes[kp.nodes.length - 1], 2);
+        if (b.length < a.length) {
+          // Search from the smaller part (state paths reverse at equal cost).
+          [a, b] = [b, a];
+          for (const v of a) this.mark[v] = 1;
+          for (const v of b) this.mark[v] = 2;
+        }
         this.targetCost = () => 0;
-        const r = this.search(a, null, kp.cost - 1e-9);
+        const r = this.search(a, null, kp.cost - 1e-9, b);
         if (r.state >= 0 && r.cost < kp.cost - 1e-9) {
           for (let i = 1; i < kp.nodes.length - 1; i++) this.mark[kp.nodes[i]] = 0;
           this.addPathRaw(r.state);
@@ -378,12 +417,15 @@ export class SiteSteiner {
   }
 
   /** Bounded Dijkstra from the source nodes (mark 1); records the cheapest arrival per node. */
-  private explore(sources: readonly number[], bound: number, out: Float64Array, outStamp: Int32Array, ep: number, touched: number[]): void {
+  private explore(sources: readonly number[], bound: number, out: Float64Array, outStamp: Int32Array, ep: number, touched: number[], win: readonly number[]): void {
     const g = this.g, off = this.off, bend = this.bend, mask = this.mask;
     const dist = this.dist, stamp = this.stamp, mark = this.mark, heap = this.heap, cost = g.cost;
     const se = ++this.epoch;
     heap.reset(this.width);
+    const nx = g.nx, [wx0, wy0, wx1, wy1] = win;
+    const inWin = (v: number): boolean => { const x = v % nx, y = (v - x) / nx; return x >= wx0 && x <= wx1 && y >= wy0 && y <= wy1; };
     for (const v of sources) {
+      if (!inWin(v)) continue;
       if (outStamp[v] !== ep) { outStamp[v] = ep; out[v] = 0; touched.push(v); }
       const bits = g.moves[v] & mask;
       for (let d = 0; d < 8; d++) {
@@ -409,7 +451,7 @@ export class SiteSteiner {
       for (let e = 0; e < 8; e++) {
         if (e === back || !((bits >> e) & 1)) continue;
         const u = v + off[e];
-        if (mark[u] === 1) continue;
+        if (mark[u] === 1 || !inWin(u)) continue;
         const nk = k + bend[d * 8 + e] + cost[v * 8 + e];
         if (nk > bound) continue;
         const s2 = u * 8 + e;
@@ -493,9 +535,18 @@ export class SiteSteiner {
     // Node-level distances from every part, bounded by the removed cost.
     const ep = ++buf.epoch;
     const touched: number[][] = comps.map(() => []);
+    // The hub is sought within the bounding box of the removed paths plus a margin.
+    const win = [Infinity, Infinity, -Infinity, -Infinity];
+    for (const p of paths) {
+      for (const v of p.nodes) {
+        const xi = v % this.g.nx, yi = (v - xi) / this.g.nx;
+        win[0] = Math.min(win[0], xi - STAR_MARGIN); win[1] = Math.min(win[1], yi - STAR_MARGIN);
+        win[2] = Math.max(win[2], xi + STAR_MARGIN); win[3] = Math.max(win[3], yi + STAR_MARGIN);
+      }
+    }
     comps.forEach((c, k) => {
       for (const v of c) this.mark[v] = 1;
-      this.explore(c, old / 2, buf.dist[k], buf.stamp[k], ep, touched[k]);
+      this.explore(c, old / 2, buf.dist[k], buf.stamp[k], ep, touched[k], win);
       for (const v of c) this.mark[v] = 0;
     });
     let best = Infinity, hub = -1;
