@@ -109,6 +109,16 @@ export async function writeReportPdf(t: TakeOff, net: TrenchNetwork, meta: Sched
   for (const u of t.utilities) {
     row(doc, [u.label, String(u.services), fmt(u.trenchLength), fmt(u.conduitLength), `${u.elbows90}/${u.elbows45}/${u.elbows22}`, String(u.tees), String(u.pullBoxes), fmt(u.tracer)], ucols, ualign);
   }
+  doc.moveDown(0.6);
+  heading(doc, 'Per segment');
+  const scols = [28, 50, 50, 150, 46, 46, 60, 60, 42];
+  const salign: ('left' | 'right')[] = ['right', 'right', 'left', 'left', 'right', 'right', 'left', 'right', 'right'];
+  doc.font('Helvetica-Bold').fontSize(7.5);
+  row(doc, ['#', `Length (${L.length})`, 'Surface', 'Carries (conduits)', `Width (${L.length})`, `Depth (${L.length})`, 'Protection', `Excav. (${L.volume})`, 'Crossings'], scols, salign);
+  doc.font('Helvetica');
+  for (const sg of t.segments) {
+    row(doc, [String(sg.segmentId), fmt(sg.length), sg.surface, sg.carriesText, fmt(sg.width), fmt(sg.depth), sg.protection, fmt(sg.excavation), String(sg.crossings)], scols, salign);
+  }
   if (t.pullBoxes.length) {
     doc.moveDown(0.6);
     heading(doc, 'Pull boxes (numbered on the plan)');
