@@ -301,6 +301,78 @@ export class LocalSearch {
     return out;
   }
 
+  /** Remaining tree edges plus each chosen edge with the search paths behind both its ends, tidied; null unless cheaper. */
+  private rebuild(tree: Int32Array, chosen: number[], isTerminal: Uint8Array, g: Graph): Int32Array | null {
+    const { removed, pred } = this;
+    const keep = new Set<number>();
+    for (const e of tree) if (!removed[e]) keep.add(e);
+    for (const e of chosen) {
+      keep.add(e);
+      for (const x0 of [g.edgeU[e], g.edgeV[e]]) {
+        let x = x0;
+        while (pred[x] !== -1) {
+          const pe = pred[x];
+          keep.add(pe);
+          x = g.edgeU[pe] === x ? g.edgeV[pe] : g.edgeU[pe];
+        }
+      }
+    }
+    const nodes = treeVertices(this.g, Int32Array.from(keep), this.scratch);
+    const next = mstPrune(g, nodes, isTerminal, this.scratch);
+    let c0 = 0;
+    for (const e of tree) c0 += g.weight[e];
+    let c1 = 0;
+    for (const e of next) c1 += g.weight[e];
+    return c1 < c0 - EPS ? next : null;
+  }
+
+  /**
+   * Two pieces (labels 0 and 1 on the tree vertices, at distance 0): the shortest path between
+   * them, searched from the smaller piece only and cut off at remCost. Dijkstra pops in
+   * non-decreasing order, so once the popped distance reaches the best entry into the other
+   * piece, that entry is the shortest connection.
+   */
+  private reconnectTwo(tree: Int32Array, remCost: number, isTerminal: Uint8Array, g: Graph): Int32Array | null {
+    const { label, dist, pred, heap } = this;
+    const treeCount = this.touchedCount;
+    let size0 = 0;
+    for (let i = 0; i < treeCount; i++) if (label[this.touched[i]] === 0) size0++;
+    const src = size0 <= treeCount - size0 ? 0 : 1;
+    const tgt = 1 - src;
+    for (let i = 0; i < treeCount; i++) if (label[this.touched[i]] === src) heap.push(this.touched[i], 0);
+    const { offsets, adj, adjEdge, weight } = g;
+    let best = remCost - EPS;
+    let bestEdge = -1;
+    while (heap.size > 0) {
+      const u = heap.pop();
+      const du = dist[u];
+      if (du >= best) break;
+      for (let j = offsets[u]; j < offsets[u + 1]; j++) {
+        const v = adj[j];
+        const lv = label[v];
+        if (lv === src && dist[v] === 0) continue;
+        const nd = du + weight[adjEdge[j]];
+        if (lv === tgt && dist[v] === 0) {
+          if (nd < best) {
+            best = nd;
+            bestEdge = adjEdge[j];
+          }
+          continue;
+        }
+        if (nd < dist[v]) {
+          if (dist[v] === Infinity) this.touched[this.touchedCount++] = v;
+          dist[v] = nd;
+          pred[v] = adjEdge[j];
+          label[v] = src;
+          heap.push(v, nd);
+        }
+      }
+    }
+    heap.clear();
+    if (bestEdge < 0) return null;
+    return this.rebuild(tree, [bestEdge], isTerminal, g);
+  }
+
   /** Removes `rem` edges and `inner` vertices, reconnects the pieces; returns the new tree if cheaper. */
   private tryMove(tree: Int32Array, rem: number[], inner: number[], remCost: number, isTerminal: Uint8Array, g: Graph): Int32Array | null {
     if (remCost <= EPS) return null;
@@ -323,7 +395,6 @@ export class LocalSearch {
         dist[va] = 0;
         pred[va] = -1;
         this.touched[this.touchedCount++] = va;
-        heap.push(va, 0);
         for (let j = tOff[a]; j < tOff[a + 1]; j++) {
           if (removed[tEdge[j]]) continue;
           const b = tAdj[j];
@@ -337,13 +408,18 @@ export class LocalSearch {
     }
     for (const x of inner) label[x] = -1;
     let result: Int32Array | null = null;
-    if (pieces >= 2) {
-      // bounded multi-source Dijkstra: nothing at or beyond remCost can pay off
+    if (pieces === 2) {
+      result = this.reconnectTwo(tree, remCost, isTerminal, g);
+    } else if (pieces > 2) {
+      for (let i = 0; i < this.touchedCount; i++) heap.push(this.touched[i], 0);
+      // bounded multi-source Dijkstra (Voronoi regions of the pieces). Searching to half the
+      // removed cost keeps the regions local; boundary edges may still end at a tentative vertex.
       const { offsets, adj, adjEdge, weight } = g;
+      const radius = remCost / 2;
       while (heap.size > 0) {
         const u = heap.pop();
         const du = dist[u];
-        if (du >= remCost) break;
+        if (du >= radius) break;
         const lu = label[u];
         for (let j = offsets[u]; j < offsets[u + 1]; j++) {
           const v = adj[j];
@@ -394,26 +470,7 @@ export class LocalSearch {
         if (++joined === pieces - 1 || total >= remCost - EPS) break;
       }
       if (joined === pieces - 1 && total < remCost - EPS) {
-        const keep = new Set<number>();
-        for (const e of tree) if (!removed[e]) keep.add(e);
-        for (const e of chosen) {
-          keep.add(e);
-          for (const x0 of [g.edgeU[e], g.edgeV[e]]) {
-            let x = x0;
-            while (pred[x] !== -1) {
-              const pe = pred[x];
-              keep.add(pe);
-              x = g.edgeU[pe] === x ? g.edgeV[pe] : g.edgeU[pe];
-            }
-          }
-        }
-        const nodes = treeVertices(this.g, Int32Array.from(keep), this.scratch);
-        const next = mstPrune(g, nodes, isTerminal, this.scratch);
-        let c0 = 0;
-        for (const e of tree) c0 += g.weight[e];
-        let c1 = 0;
-        for (const e of next) c1 += g.weight[e];
-        if (c1 < c0 - EPS) result = next;
+        result = this.rebuild(tree, chosen, isTerminal, g);
       }
     }
     // reset scratch

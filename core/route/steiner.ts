@@ -15,7 +15,9 @@ import { mstPrune, TreeScratch, treeVertices } from './tree';
 const DEFAULT_BUDGET_MS = 2000;
 const DEFAULT_MAX_ITERATIONS = 200;
 const FIRST_PLAIN_ROOTS = 4;
-const STALL_MIN = 16;
+const STALL_MIN = 8;
+/** Keep searching at least this long (ms) even after a stall: small instances iterate fast. */
+const MIN_SEARCH_MS = 150;
 const ELITE_SIZE = 8;
 const RECOMBINE_EVERY = 3;
 const RECOMBINE_ROOTS = 6;
@@ -138,10 +140,10 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
   }
   const pert = new Float64Array(g.m);
   const pg = withWeights(g, pert);
-  const stallLimit = Math.max(STALL_MIN, terms.length);
+  const stallLimit = Math.max(STALL_MIN, Math.ceil(terms.length / 2));
   for (let it = 0; it < maxIter; it++) {
     if (!best && opts.signal?.aborted) throw new Cancelled();
-    if (best && (stop() || stall >= stallLimit || bestCost <= lowerBound + 1e-9 * bestCost)) break;
+    if (best && (stop() || (stall >= stallLimit && now() - t0 >= MIN_SEARCH_MS) || bestCost <= lowerBound + 1e-9 * bestCost)) break;
     let tree: Int32Array | null;
     if (it >= FIRST_PLAIN_ROOTS && elite.length >= 2 && it % RECOMBINE_EVERY === 0) {
       // recombine the best tree with one or two other elite trees
