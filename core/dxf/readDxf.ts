@@ -8,6 +8,7 @@ import { err, ok, type Result } from '../result';
 import { metresPerInsUnit, M_PER_FT } from '../units';
 import { CircleHandler, LwPolylineHandler, PolylineHandler } from './parserHandlers';
 import { Exploder } from './explode';
+import { findTablesSection, readLayerTable, type LayerRecord } from './layerTable';
 
 export interface ReadDxfOptions {
   /** Largest chord error (sagitta) for curves, in drawing units. Default: 1 cm (metric) / 0.03 ft (imperial). */
@@ -75,15 +76,26 @@ export function readDxf(text: string, opts: ReadDxfOptions = {}): Result<Drawing
   parser.registerEntityHandler(PolylineHandler as any);
   parser.registerEntityHandler(LwPolylineHandler as any);
   parser.registerEntityHandler(CircleHandler as any);
+  // the TABLES section is read by readLayerTable and kept away from dxf-parser (see layerTable.ts)
+  const tables = findTablesSection(text);
+  const layerRecords = tables ? readLayerTable(text.slice(tables.start, tables.end)) : [];
+  const body = tables ? text.slice(0, tables.start) + text.slice(tables.end) : text;
   let dxf: any;
+  // dxf-parser reports odd groups on the console; the reader reports through its result instead
+  const { warn, error, log } = console;
   try {
-    dxf = parser.parseSync(text);
+    console.warn = console.error = console.log = () => {};
+    dxf = parser.parseSync(body);
   } catch (x) {
     const msg = x instanceof Error ? x.message : String(x);
-    if (/end of input|after EOF/i.test(msg)) {
+    if (/end of input/i.test(msg)) {
       return err({ kind: 'truncated', message: `the file ends before its end-of-file marker (${msg}); it may be truncated — save or copy it again` });
     }
     return err({ kind: 'garbage', message: `the file is not valid DXF (${msg}); save it again as ASCII DXF` });
+  } finally {
+    console.warn = warn;
+    console.error = error;
+    console.log = log;
   }
   if (!dxf || !Array.isArray(dxf.entities)) {
     return err({ kind: 'no-model-space', message: 'the file has no ENTITIES section (no model-space drawing); export the site plan again' });
@@ -114,7 +126,7 @@ export function readDxf(text: string, opts: ReadDxfOptions = {}): Result<Drawing
   }
   return ok({
     header: { version, insUnits, extents: extentsOf(ex.out) },
-    layers: layersOf(dxf, ex.out),
+    layers: layersOf(layerRecords, ex.out),
     entities: ex.out,
     warnings,
   });
@@ -166,13 +178,11 @@ function extentsOf(entities: Drawing['entities']): Extents {
 }
 
 /** Layers from the table, plus any used but missing; entity layer names take the table's spelling (DXF layer names are case-insensitive). */
-function layersOf(dxf: any, entities: Drawing['entities']): DrawingLayer[] {
-  const table: Record<string, any> = dxf.tables?.layer?.layers ?? {};
+function layersOf(records: LayerRecord[], entities: Drawing['entities']): DrawingLayer[] {
   const out = new Map<string, DrawingLayer>(); // key: upper-case name
-  for (const name of Object.keys(table)) {
-    const l = table[name];
-    const key = name.toUpperCase();
-    if (!out.has(key)) out.set(key, { name, color: Math.abs(l.colorIndex ?? 7), on: l.visible !== false, frozen: !!l.frozen });
+  for (const l of records) {
+    const key = l.name.toUpperCase();
+    if (!out.has(key)) out.set(key, { name: l.name, color: l.color, on: l.on, frozen: l.frozen });
   }
   let last = '';
   let lastCanon = '';
