@@ -6,8 +6,8 @@ import { Worker } from 'node:worker_threads';
 import { registerCommand } from './main';
 import { readRouteInputs, writeRouteOutputs, type RouteArgs } from '../io/routeFiles';
 import { noticeText } from '../notice';
-import { STAGES, type PipelineError, type PipelineOutput, type Summary } from '../pipeline';
-import type { Result } from '../result';
+import { STAGES, type Summary } from '../pipeline';
+import type { WorkerMessage } from './routeWorker';
 
 const USAGE = 'usage: furrow route <drawing.dxf> --services <services.csv> [--roles roles.json] [--settings settings.json] [--units m|ft] --out <dir> [--json]';
 
@@ -80,52 +80,65 @@ function summaryText(s: Summary, out: string): string {
   return lines.join('\n') + '\n';
 }
 
-type Slim = Result<Pick<PipelineOutput, 'summary' | 'files'>, PipelineError>;
-
 export async function routeCommand(args: string[]): Promise<number> {
   const parsed = parseRouteArgs(args);
   if (!parsed.ok) return fail(parsed.message);
   const a = parsed.value;
-  const input = await readRouteInputs(a, new Date().toISOString().slice(0, 10));
-  if (!input.ok) return fail(input.error.message);
 
+  // Ctrl-C: the first asks the pipeline to stop (it polls a shared flag), the second stops at once.
   const abort = new SharedArrayBuffer(4);
   const flag = new Int32Array(abort);
-  const bar = progressBar(Boolean(process.stderr.isTTY));
-  const worker = new Worker(new URL('./routeWorker.mjs', import.meta.url), { workerData: { input: input.value, abort } });
-  let interrupted = false;
+  const mode = process.stderr.isTTY ? 'bar' : process.env.FURROW_PROGRESS === 'lines' ? 'lines' : 'off';
+  const bar = progressBar(mode === 'bar');
+  let phase: 'run' | 'write' = 'run';
   const onSigint = (): void => {
-    if (interrupted) process.exit(130);
-    interrupted = true;
+    if (Atomics.load(flag, 0) !== 0) process.exit(130);
     Atomics.store(flag, 0, 1);
     bar.clear();
-    process.stderr.write('furrow route: cancelling (Ctrl-C again to stop at once)...\n');
+    process.stderr.write(phase === 'write' ? 'furrow route: finishing the files being written...\n' : 'furrow route: cancelling (Ctrl-C again to stop at once)...\n');
   };
   process.on('SIGINT', onSigint);
-  let outcome: { type: 'result'; result: Slim } | { type: 'cancelled' } | { type: 'crash'; message: string };
   try {
-    outcome = await new Promise((resolve) => {
-      worker.on('message', (m: { type: string; stage?: string; fraction?: number }) => {
-        if (m.type === 'progress') bar.update(m.stage!, m.fraction!);
-        else resolve(m as typeof outcome);
+    const input = await readRouteInputs(a, new Date().toISOString().slice(0, 10));
+    if (!input.ok) return fail(input.error.message);
+    if (Atomics.load(flag, 0) !== 0) return fail('cancelled by Ctrl-C; nothing was written', 130);
+
+    const worker = new Worker(new URL('./routeWorker.mjs', import.meta.url), { workerData: { input: input.value, abort } });
+    let lastStage = '';
+    let outcome: Exclude<WorkerMessage, { type: 'progress' }>;
+    try {
+      outcome = await new Promise((resolve) => {
+        worker.on('message', (m: WorkerMessage) => {
+          if (m.type !== 'progress') { resolve(m); return; }
+          bar.update(m.stage, m.fraction);
+          // FURROW_PROGRESS=lines: one line per stage, for logs and scripts
+          if (mode === 'lines' && m.stage !== lastStage) process.stderr.write(`furrow route: ${m.stage}\n`);
+          lastStage = m.stage;
+        });
+        worker.on('error', (e) => resolve({ type: 'crash', message: e.stack ?? e.message }));
+        worker.on('exit', (code) => resolve({ type: 'crash', message: `the routing worker stopped (exit ${code})` }));
       });
-      worker.on('error', (e) => resolve({ type: 'crash', message: e.stack ?? e.message }));
-      worker.on('exit', (code) => resolve({ type: 'crash', message: `the routing worker stopped (exit ${code})` }));
-    });
+    } finally {
+      bar.clear();
+      await worker.terminate();
+    }
+    if (outcome.type === 'cancelled' || Atomics.load(flag, 0) !== 0) return fail('cancelled by Ctrl-C; nothing was written', 130);
+    if (outcome.type === 'crash') return fail(`internal error, please report it:\n${outcome.message}`, 1);
+    const r = outcome.result;
+    if (!r.ok) return fail(r.error.message);
+    const { summary, files } = r.value;
+    phase = 'write';
+    const w = await writeRouteOutputs(a.out, files, summary);
+    if (!w.ok) return fail(w.error.message);
+    return report(summary, a.out, a.json);
   } finally {
     process.off('SIGINT', onSigint);
-    bar.clear();
-    await worker.terminate();
   }
-  if (outcome.type === 'cancelled') return fail('cancelled by Ctrl-C; nothing was written', 130);
-  if (outcome.type === 'crash') return fail(`internal error, please report it:\n${outcome.message}`, 1);
-  const r = outcome.result;
-  if (!r.ok) return fail(r.error.message);
-  const { summary, files } = r.value;
-  const w = await writeRouteOutputs(a.out, files, summary);
-  if (!w.ok) return fail(w.error.message);
-  if (a.json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
-  else process.stdout.write(summaryText(summary, a.out));
+}
+
+function report(summary: Summary, out: string, json: boolean): number {
+  if (json) process.stdout.write(JSON.stringify(summary, null, 2) + '\n');
+  else process.stdout.write(summaryText(summary, out));
   if (summary.status === 'partial') {
     process.stderr.write(`furrow route: done in part; not connected: ${summary.services.unreachable.map((x) => `${x.id} (${x.reason})`).join('; ')}\n`);
     return 3;

@@ -1,12 +1,12 @@
 // Runs the pipeline off the main thread so that Ctrl-C stays responsive while the router works:
 // the main thread sets a shared flag, the pipeline's signal reads it.
 import { parentPort, workerData } from 'node:worker_threads';
-import { runPipeline, type PipelineInput } from '../pipeline';
-import { Cancelled } from '../result';
+import { runPipeline, type PipelineError, type PipelineInput, type PipelineOutput } from '../pipeline';
+import { Cancelled, type Result } from '../result';
 
 export type WorkerMessage =
   | { type: 'progress'; stage: string; fraction: number }
-  | { type: 'result'; result: Awaited<ReturnType<typeof runPipeline>> extends infer R ? R : never }
+  | { type: 'result'; result: Result<Pick<PipelineOutput, 'summary' | 'files'>, PipelineError> }
   | { type: 'cancelled' }
   | { type: 'crash'; message: string };
 
@@ -20,7 +20,7 @@ try {
   if (r.ok) {
     // only what the command writes and prints crosses back
     const { summary, files } = r.value;
-    parentPort!.postMessage({ type: 'result', result: { ok: true, value: { summary, files } } });
+    post({ type: 'result', result: { ok: true, value: { summary, files } } });
   } else {
     post({ type: 'result', result: r });
   }

@@ -124,17 +124,22 @@ describe('Ctrl-C', () => {
     writeFileSync(settings, JSON.stringify({ route: { timeBudgetMs: 60000 } }));
     const out = join(TMP, 'cancelled');
     let sentAt = 0;
-    const child = spawn(process.execPath, [BIN, 'route', ...demoArgs(out, ['--settings', settings])], { cwd: ROOT });
+    // FURROW_PROGRESS=lines prints each stage as it starts: interrupt one second into routing
+    const child = spawn(process.execPath, [BIN, 'route', ...demoArgs(out, ['--settings', settings])], { cwd: ROOT, env: { ...process.env, FURROW_PROGRESS: 'lines' } });
     let stderr = '';
-    child.stderr.on('data', (d) => { stderr += String(d); });
-    // about 4 s in, the router is working (start-up and reading take well under that here)
-    const timer = setTimeout(() => { sentAt = Date.now(); child.kill('SIGINT'); }, 4000);
+    let timer: NodeJS.Timeout | undefined;
+    child.stderr.on('data', (d) => {
+      stderr += String(d);
+      if (!timer && /furrow route: route\n/.test(stderr)) timer = setTimeout(() => { sentAt = Date.now(); child.kill('SIGINT'); }, 1000);
+    });
     const code = await new Promise<number | null>((resolve) => child.on('exit', (c) => resolve(c)));
-    clearTimeout(timer);
     expect(sentAt).toBeGreaterThan(0);
+    expect(stderr).toMatch(/furrow route: read\nfurrow route: site\nfurrow route: place\nfurrow route: route\n/);
     expect(code).toBe(130);
-    expect(stderr).toMatch(/cancelled by Ctrl-C; nothing was written/);
+    expect(stderr).toMatch(/cancelling \(Ctrl-C again to stop at once\)[\s\S]*cancelled by Ctrl-C; nothing was written/);
+    // with a 60 s budget the route would run most of a minute; the cancel must be prompt
     expect(Date.now() - sentAt).toBeLessThan(5000);
+    expect(stderr).not.toMatch(/furrow route: takeoff/);
     expect(existsSync(join(out, 'summary.json'))).toBe(false);
   });
 });
