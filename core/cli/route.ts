@@ -1,6 +1,7 @@
 // `furrow route <drawing.dxf> --services <services.csv> [--roles roles.json] [--settings settings.json]
 // [--units m|ft] --out <dir> [--json]`: the whole job. Exit 0 done; 2 bad input; 3 done in part
-// (some points unreachable); 130 cancelled (Ctrl-C).
+// (some points unreachable); 130 cancelled (Ctrl-C). Progress: a bar on a terminal; with
+// FURROW_PROGRESS=lines, one stderr line per stage otherwise.
 
 import { Worker } from 'node:worker_threads';
 import { registerCommand } from './main';

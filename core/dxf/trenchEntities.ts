@@ -124,9 +124,12 @@ export function buildTrenchDrawing(input: TrenchDrawingInput): TrenchDrawing {
 
   // Labels: segment id, length, contents, at the middle of the segment along its longest piece.
   const lenLabel = unitLabels(u).length;
+  // utilities in the order of the settings, unknown keys after them alphabetically
+  const rank = (k: string): number => { const i = input.utilities.findIndex((x) => x.key === k); return i < 0 ? Infinity : i; };
+  const byUtilityOrder = (a: string, b: string): number => rank(a) - rank(b) || (a < b ? -1 : a > b ? 1 : 0);
   for (const s of net.segments) {
     const carried = info.get(s.id)?.carries ?? {};
-    const contents = Object.keys(carried).sort().filter((k) => carried[k] > 0).map((k) => `${k} ${carried[k]}`).join(', ');
+    const contents = Object.keys(carried).sort(byUtilityOrder).filter((k) => carried[k] > 0).map((k) => `${k} ${carried[k]}`).join(', ');
     const text = `S${s.id} ${s.length.toFixed(1)} ${lenLabel}${contents ? ' ' + contents : ''}`;
     const at = labelAnchor(s.points);
     const off = widthOf(s.id) / 2 + fromMetres(LABEL_H_M, u) * 0.5;

@@ -168,6 +168,24 @@ describe.each(CASES)('layer-only DXF for the $ver drawing in $units', ({ ver, un
   });
 });
 
+describe('layer-only DXF for a millimetre drawing', () => {
+  it('writes back through the frame: drawing = local / scale + origin, $INSUNITS 4', () => {
+    // routing in metres over a drawing in millimetres: scale = 0.001 m per drawing unit
+    const inp = sampleInput('m');
+    const frame = { originX: 631200000, originY: 5402100000, scale: 0.001 };
+    const mmInput = { ...inp, net: { ...inp.net, frame }, extents: undefined };
+    const path = join(DIR, 'layers-mm.dxf');
+    writeFileSync(path, writeLayerOnlyDxf(mmInput, { insUnits: 4 }));
+    const a = audit(path);
+    expect(a.errors).toBe(0);
+    expect(a.insunits).toBe(4); // DXF reference: $INSUNITS 4 = millimetres
+    const cl = a.polylines.filter((p) => p.layer === 'TRENCH-CENTERLINE');
+    const lenMm = cl.reduce((s, p) => s + polyLength(p.points), 0);
+    expect(Math.abs(lenMm / 1000 - sampleLength(inp)) / sampleLength(inp)).toBeLessThan(0.001);
+    expect(cl[0].points[0][0]).toBeCloseTo(631200000 + 50 * 1000, 3);
+  });
+});
+
 describe('merging into unusual originals', () => {
   // A minimal R12 file as some site tools write it: no TABLES, no handles.
   const MINIMAL_R12 = ['0', 'SECTION', '2', 'HEADER', '9', '$ACADVER', '1', 'AC1009', '0', 'ENDSEC',
