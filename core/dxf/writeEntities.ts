@@ -88,24 +88,34 @@ export function writeEntity(t: Tags, e: OutEntity, f: Flavor): void {
   switch (e.type) {
     case 'polyline': {
       const n = e.points.length / 2;
-      if (modern(f)) {
+      if (f.version >= 1014) {
+        // LWPOLYLINE exists from R14 (AC1014) on
         common(t, 'LWPOLYLINE', e, f);
         t.add(100, 'AcDbPolyline').add(90, n).add(70, e.closed ? 1 : 0).real(43, 0);
         for (let i = 0; i < e.points.length; i += 2) t.real(10, e.points[i]).real(20, e.points[i + 1]);
-      } else {
-        common(t, 'POLYLINE', e, f);
-        t.add(66, 1).real(10, 0).real(20, 0).real(30, 0).add(70, e.closed ? 1 : 0);
-        for (let i = 0; i < e.points.length; i += 2) {
-          t.add(0, 'VERTEX');
-          handle(t, f);
-          t.add(8, dxfText(e.layer, f.encoding));
-          if (e.color !== undefined) t.add(62, e.color);
-          t.real(10, e.points[i]).real(20, e.points[i + 1]).real(30, 0);
-        }
-        t.add(0, 'SEQEND');
-        handle(t, f);
-        t.add(8, dxfText(e.layer, f.encoding));
+        return;
       }
+      // R12 and R13: POLYLINE / VERTEX / SEQEND; in R13 the vertices and SEQEND are owned by the POLYLINE
+      const polyHandle = f.handles ? handleHex(f.next) : undefined;
+      common(t, 'POLYLINE', e, f);
+      if (modern(f)) t.add(100, 'AcDb2dPolyline');
+      t.add(66, 1).real(10, 0).real(20, 0).real(30, 0).add(70, e.closed ? 1 : 0);
+      const sub = (type: string): void => {
+        t.add(0, type);
+        handle(t, f);
+        if (modern(f)) {
+          if (polyHandle) t.add(330, polyHandle);
+          t.add(100, 'AcDbEntity');
+        }
+        t.add(8, dxfText(e.layer, f.encoding));
+        if (e.color !== undefined) t.add(62, e.color);
+      };
+      for (let i = 0; i < e.points.length; i += 2) {
+        sub('VERTEX');
+        if (modern(f)) t.add(100, 'AcDbVertex').add(100, 'AcDb2dVertex');
+        t.real(10, e.points[i]).real(20, e.points[i + 1]).real(30, 0);
+      }
+      sub('SEQEND');
       return;
     }
     case 'circle':

@@ -233,6 +233,24 @@ describe('merging into unusual originals', () => {
     expect(a.counts['TRENCH-CENTERLINE']).toBeUndefined();
   });
 
+  it('writes POLYLINE/VERTEX/SEQEND owned by their polyline into an R13 (AC1012) file, which has no LWPOLYLINE', () => {
+    // an R13 header on the R2000 fixture (ezdxf writes no R13): ezdxf reads and audits it
+    const text = readFileSync(join(DIR, 'site-r2000-m.dxf'), 'latin1').replace(/\$ACADVER(\r?\n\s*1\r?\n)AC1015/, '$ACADVER$1AC1012');
+    expect(text).toContain('AC1012');
+    const r = writeMergedDxf(Buffer.from(text, 'latin1'), sampleInput('m'));
+    if (!r.ok) throw new Error(r.error.message);
+    const out = Buffer.from(r.value.bytes).toString('latin1');
+    expect(out).not.toContain('LWPOLYLINE');
+    const path = join(DIR, 'merged-r13.dxf');
+    writeFileSync(path, r.value.bytes);
+    const a = audit(path);
+    expect(a.errors).toBe(0);
+    expect(a.raw.handlesUnique).toBe(true);
+    expect(a.raw.entitiesNotOwnedByModelSpace).toBe(0);
+    const len = a.polylines.filter((p) => p.layer === 'TRENCH-CENTERLINE').reduce((s, p) => s + polyLength(p.points), 0);
+    expect(Math.abs(len - sampleLength(sampleInput('m'))) / sampleLength(sampleInput('m'))).toBeLessThan(0.001);
+  });
+
   it('adds $HANDSEED when an R2000 header lacks it, above every handle', () => {
     const text = readFileSync(join(DIR, 'site-r2000-m.dxf'), 'latin1').replace(/ {2}9\r?\n\$HANDSEED\r?\n {2}5\r?\n[0-9A-Fa-f]+\r?\n/, '');
     expect(text).not.toContain('$HANDSEED');
