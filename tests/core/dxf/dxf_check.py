@@ -3,6 +3,7 @@
   make <dir>          write input drawings (R12 and R2000/R2018, metres and feet) with ezdxf
   audit <file> [orig] print JSON: ezdxf audit errors, per-layer model-space counts, and a raw
                       tag-level check of handles, owners and $HANDSEED (ezdxf's low-level tagger)
+  audit-many <files>  the same for each file, as one JSON list
 """
 import json
 import sys
@@ -123,5 +124,7 @@ def audit(path):
 if __name__ == "__main__":
     if sys.argv[1] == "make":
         make(sys.argv[2])
+    elif sys.argv[1] == "audit-many":
+        print(json.dumps([audit(p) for p in sys.argv[2:]]))
     else:
         print(json.dumps(audit(sys.argv[2])))
