@@ -42,9 +42,23 @@ export function buildSite(drawing: Drawing, opts: BuildSiteOptions = {}): Result
 
   // extents of what is used (ignored layers such as title blocks far away do not widen the site)
   const ext = { minX: Infinity, minY: Infinity, maxX: -Infinity, maxY: -Infinity };
+  // one pass: group polylines by role and take the extents of what is used
+  const byRole = new Map<LayerRole, PolylineEntity[]>();
+  let lastLayer = '';
+  let lastList: PolylineEntity[] | null = null;
   for (const e of drawing.entities) {
-    if ((roleOf[e.layer] ?? 'ignore') === 'ignore') continue;
     if (e.kind !== 'polyline') continue;
+    if (e.layer !== lastLayer) {
+      lastLayer = e.layer;
+      const role = roleOf[e.layer] ?? 'ignore';
+      if (role === 'ignore') lastList = null;
+      else {
+        lastList = byRole.get(role) ?? null;
+        if (!lastList) { lastList = []; byRole.set(role, lastList); }
+      }
+    }
+    if (lastList === null) continue;
+    lastList.push(e);
     const p = e.points;
     for (let i = 0; i < p.length; i += 2) {
       const x = p[i], y = p[i + 1];
@@ -60,15 +74,6 @@ export function buildSite(drawing: Drawing, opts: BuildSiteOptions = {}): Result
   const { units, frame } = fr.value;
   const tol = opts.stitchTolerance ?? fromMetres(DEFAULT_STITCH_M, units);
   const minArea = tol * tol;
-
-  const byRole = new Map<LayerRole, PolylineEntity[]>();
-  for (const e of drawing.entities) {
-    if (e.kind !== 'polyline') continue;
-    const role = roleOf[e.layer] ?? 'ignore';
-    if (role === 'ignore') continue;
-    const list = byRole.get(role);
-    if (list) list.push(e); else byRole.set(role, [e]);
-  }
 
   const where = (x: number, y: number): string => {
     const p = toDrawing(frame, x, y);

@@ -45,9 +45,12 @@ export function repairRing(r: Ring, minArea: number): Ring[] {
 export function assemblePolygons(rings: LayeredRing[]): Polygon[] {
   const n = rings.length;
   const boxes: Box[] = rings.map((r) => boxOf(r.ring));
-  const areas = rings.map((r) => Math.abs(signedArea(r.ring)));
+  const signed = new Float64Array(n);
+  const areas = new Float64Array(n);
+  for (let i = 0; i < n; i++) { signed[i] = signedArea(rings[i].ring); areas[i] = Math.abs(signed[i]); }
   // clusters of rings whose boxes overlap (union-find over a uniform grid of boxes)
-  const parent = Int32Array.from({ length: n }, (_, i) => i);
+  const parent = new Int32Array(n);
+  for (let i = 0; i < n; i++) parent[i] = i;
   const find = (i: number): number => {
     while (parent[i] !== i) { parent[i] = parent[parent[i]]; i = parent[i]; }
     return i;
@@ -56,25 +59,24 @@ export function assemblePolygons(rings: LayeredRing[]): Polygon[] {
     const ra = find(a), rb = find(b);
     if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
   });
-  const clusters = new Map<number, number[]>();
+  const size = new Int32Array(n);
+  for (let i = 0; i < n; i++) size[find(i)]++;
+  const clusters = new Map<number, number[]>(); // only clusters of two or more rings
+  const out: Polygon[] = [];
   for (let i = 0; i < n; i++) {
-    const r = find(i);
+    const r = parent[i] === i ? i : find(i);
+    if (size[r] === 1) {
+      out.push({ outer: signed[i] < 0 ? reversed(rings[i].ring) : rings[i].ring, holes: [], layer: rings[i].layer });
+      continue;
+    }
     const c = clusters.get(r);
     if (c) c.push(i); else clusters.set(r, [i]);
   }
-  const out: Polygon[] = [];
-  for (const members of clusters.values()) {
-    if (members.length === 1) {
-      const i = members[0];
-      out.push({ outer: ccw(rings[i].ring), holes: [], layer: rings[i].layer });
-      continue;
-    }
-    out.push(...unionCluster(members, rings, boxes, areas));
-  }
+  for (const members of clusters.values()) out.push(...unionCluster(members, rings, boxes, areas));
   return out;
 }
 
-function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], areas: number[]): Polygon[] {
+function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], areas: Float64Array): Polygon[] {
   // nesting depth: how many other rings of the cluster contain this one
   const byArea = [...members].sort((a, b) => areas[b] - areas[a] || a - b);
   let ox = Infinity, oy = Infinity;
@@ -114,9 +116,11 @@ function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], are
 }
 
 /**
- * Calls back once for every pair of overlapping boxes. Boxes go into the cells of a uniform grid
- * (cell = twice the median box size); a pair is tested only in the cell holding the lower-left
- * corner of the two boxes' intersection, so it is reported once. Near-linear for footprints.
+ * Calls back once for every pair of overlapping boxes. Boxes are entered into the cells of a uniform
+ * grid (cell = twice the median box size, at most 4096 × 4096 cells) as (cell, box) keys in one typed
+ * array, sorted; a pair is tested only in the cell holding the lower-left corner of the two boxes'
+ * intersection, so it is reported once. Near-linear for footprints; boxes covering very many cells
+ * are tested against all others instead.
  */
 export function overlappingPairs(boxes: Box[], onPair: (a: number, b: number) => void): void {
   const n = boxes.length;
@@ -125,44 +129,58 @@ export function overlappingPairs(boxes: Box[], onPair: (a: number, b: number) =>
   const sizes = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const b = boxes[i];
-    gx = Math.min(gx, b.minX); gy = Math.min(gy, b.minY); gX = Math.max(gX, b.maxX); gY = Math.max(gY, b.maxY);
+    if (b.minX < gx) gx = b.minX;
+    if (b.minY < gy) gy = b.minY;
+    if (b.maxX > gX) gX = b.maxX;
+    if (b.maxY > gY) gY = b.maxY;
     sizes[i] = Math.max(b.maxX - b.minX, b.maxY - b.minY);
   }
   sizes.sort();
   const span = Math.max(gX - gx, gY - gy, 1e-9);
-  const cell = Math.max(2 * sizes[n >> 1], span / 65536, 1e-9);
-  const MAX_CELLS_PER_BOX = 1024;
-  const grid = new Map<number, number[]>();
-  const big: number[] = []; // boxes covering too many cells: tested against every box
-  const cx = (x: number): number => Math.floor((x - gx) / cell);
-  const cy = (y: number): number => Math.floor((y - gy) / cell);
+  const DIM = 4096;
+  const cell = Math.max(2 * sizes[n >> 1], span / (DIM - 1), 1e-9);
+  const MAX_CELLS_PER_BOX = 256;
+  const cx = (x: number): number => Math.min(DIM - 1, Math.floor((x - gx) / cell));
+  const cy = (y: number): number => Math.min(DIM - 1, Math.floor((y - gy) / cell));
+  // key = cell * n + box: cell < 2^24 and n < 2^29 keep keys exact in a float64
+  let count = 0;
+  const big: number[] = [];
   for (let i = 0; i < n; i++) {
     const b = boxes[i];
-    const x0 = cx(b.minX), x1 = cx(b.maxX), y0 = cy(b.minY), y1 = cy(b.maxY);
-    if ((x1 - x0 + 1) * (y1 - y0 + 1) > MAX_CELLS_PER_BOX) { big.push(i); continue; }
-    for (let x = x0; x <= x1; x++) {
-      for (let y = y0; y <= y1; y++) {
-        const k = x * 131072 + y;
-        const list = grid.get(k);
-        if (list) list.push(i); else grid.set(k, [i]);
-      }
-    }
-  }
-  for (const [k, list] of grid) {
-    if (list.length < 2) continue;
-    const kx = Math.floor(k / 131072), ky = k - kx * 131072;
-    for (let p = 0; p < list.length; p++) {
-      const a = boxes[list[p]];
-      for (let q = p + 1; q < list.length; q++) {
-        const b = boxes[list[q]];
-        if (!boxesOverlap(a, b)) continue;
-        if (cx(Math.max(a.minX, b.minX)) !== kx || cy(Math.max(a.minY, b.minY)) !== ky) continue;
-        onPair(list[p], list[q]);
-      }
-    }
+    const c = (cx(b.maxX) - cx(b.minX) + 1) * (cy(b.maxY) - cy(b.minY) + 1);
+    if (c > MAX_CELLS_PER_BOX) big.push(i); else count += c;
   }
   const isBig = new Uint8Array(n);
   for (const i of big) isBig[i] = 1;
+  const keys = new Float64Array(count);
+  let w = 0;
+  for (let i = 0; i < n; i++) {
+    if (isBig[i]) continue;
+    const b = boxes[i];
+    const x0 = cx(b.minX), x1 = cx(b.maxX), y0 = cy(b.minY), y1 = cy(b.maxY);
+    for (let x = x0; x <= x1; x++) for (let y = y0; y <= y1; y++) keys[w++] = (x * DIM + y) * n + i;
+  }
+  keys.sort();
+  for (let s = 0; s < count; ) {
+    const cellId = Math.floor(keys[s] / n);
+    let e = s + 1;
+    while (e < count && Math.floor(keys[e] / n) === cellId) e++;
+    if (e - s > 1) {
+      const kx = Math.floor(cellId / DIM), ky = cellId - kx * DIM;
+      for (let p = s; p < e; p++) {
+        const ia = keys[p] - cellId * n;
+        const a = boxes[ia];
+        for (let q = p + 1; q < e; q++) {
+          const ib = keys[q] - cellId * n;
+          const b = boxes[ib];
+          if (!boxesOverlap(a, b)) continue;
+          if (cx(Math.max(a.minX, b.minX)) !== kx || cy(Math.max(a.minY, b.minY)) !== ky) continue;
+          onPair(ia, ib);
+        }
+      }
+    }
+    s = e;
+  }
   for (const i of big) {
     for (let j = 0; j < n; j++) {
       if (j === i || (isBig[j] && j < i)) continue;

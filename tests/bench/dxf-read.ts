@@ -6,6 +6,7 @@
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
+import { loadavg } from 'node:os';
 import DxfParser from 'dxf-parser';
 import { readDxfBytes } from '../../core/dxf/readDxf';
 import { buildSite } from '../../core/site/buildSite';
@@ -109,33 +110,46 @@ for (const mb of [Math.max(1, Math.round(mbArg / 4)), mbArg]) {
   const sizeMB = bytes.length / (1024 * 1024);
   const runs = mb >= 10 ? 3 : 5;
   const parseMs: number[] = [], readMs: number[] = [], siteMs: number[] = [];
+  const parseCpu: number[] = [], readCpu: number[] = [], siteCpu: number[] = [];
   let buildings = 0, entities = 0;
   const gc = (globalThis as { gc?: () => void }).gc;
+  // CPU time (user + system) as well as wall time: the machine may be shared, CPU time is steadier
+  const cpuMs = (c: NodeJS.CpuUsage): number => (c.user + c.system) / 1000;
   for (let k = 0; k < runs; k++) {
     gc?.();
     // peer: dxf-parser alone on the decoded text (decoding included, as in readDxfBytes)
+    let c = process.cpuUsage();
     let t = performance.now();
     const text = new TextDecoder('utf-8').decode(bytes);
     new DxfParser().parseSync(text);
     parseMs.push(performance.now() - t);
+    parseCpu.push(cpuMs(process.cpuUsage(c)));
     gc?.();
+    c = process.cpuUsage();
     t = performance.now();
     const d = readDxfBytes(bytes);
     readMs.push(performance.now() - t);
+    readCpu.push(cpuMs(process.cpuUsage(c)));
     if (!d.ok) throw new Error(d.error.message);
+    c = process.cpuUsage();
     t = performance.now();
     const s = buildSite(d.value, { roles: ROLES });
     siteMs.push(performance.now() - t);
+    siteCpu.push(cpuMs(process.cpuUsage(c)));
     if (!s.ok) throw new Error(s.error.message);
     buildings = s.value.buildings.length;
     entities = d.value.entities.length;
   }
   const p = median(parseMs), rd = median(readMs), st = median(siteMs);
+  const pc = median(parseCpu), rc = median(readCpu), sc = median(siteCpu);
   console.log(JSON.stringify({
     case: `site-${mb}mb`, sizeMB: +sizeMB.toFixed(2), entities, buildings, runs,
     parseOnlyMs: Math.round(p), readDxfMs: Math.round(rd), buildSiteMs: Math.round(st), readyMs: Math.round(rd + st),
     parseMBps: +(sizeMB / (p / 1000)).toFixed(1), readyMBps: +(sizeMB / ((rd + st) / 1000)).toFixed(1),
-    readOverParse: +(rd / p).toFixed(3), siteOverParse: +(st / p).toFixed(3), readyOverParse: +((rd + st) / p).toFixed(3),
+    readOverParse: +(rd / p).toFixed(3), siteOverParse: +(st / p).toFixed(3), siteOverRead: +(st / rd).toFixed(3), readyOverParse: +((rd + st) / p).toFixed(3),
+    cpuMs: { parseOnly: Math.round(pc), readDxf: Math.round(rc), buildSite: Math.round(sc) },
+    cpuSiteOverParse: +(sc / pc).toFixed(3), cpuSiteOverRead: +(sc / rc).toFixed(3),
+    loadAverage1m: +(loadavg()[0]).toFixed(1),
     targets: { siteAddsAtMost: 0.3, readyMsAtMost20MB: 3000 },
   }));
 }
