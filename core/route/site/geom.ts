@@ -69,7 +69,11 @@ export class EdgeIndex {
   /** True when segment a-b touches any edge (closed test: touching and overlap count). */
   touches(ax: number, ay: number, bx: number, by: number): boolean {
     if (this.count === 0) return false;
-    const [c0, r0, c1, r1] = this.range(Math.min(ax, bx), Math.min(ay, by), Math.max(ax, bx), Math.max(ay, by));
+    const inv = 1 / this.cell, cm = this.cols - 1, rm = this.rows - 1;
+    let c0 = Math.floor((Math.min(ax, bx) - this.minX) * inv), c1 = Math.floor((Math.max(ax, bx) - this.minX) * inv);
+    let r0 = Math.floor((Math.min(ay, by) - this.minY) * inv), r1 = Math.floor((Math.max(ay, by) - this.minY) * inv);
+    if (c1 < 0 || r1 < 0 || c0 > cm || r0 > rm) return false;
+    c0 = c0 < 0 ? 0 : c0; r0 = r0 < 0 ? 0 : r0; c1 = c1 > cm ? cm : c1; r1 = r1 > rm ? rm : r1;
     const ep = ++this.epoch;
     const ex = this.ex;
     for (let r = r0; r <= r1; r++) {
@@ -89,7 +93,11 @@ export class EdgeIndex {
   /** Appends to `out` the parameters t in (0,1) where a-b crosses an edge. */
   crossings(ax: number, ay: number, bx: number, by: number, out: number[]): void {
     if (this.count === 0) return;
-    const [c0, r0, c1, r1] = this.range(Math.min(ax, bx), Math.min(ay, by), Math.max(ax, bx), Math.max(ay, by));
+    const inv = 1 / this.cell, cm = this.cols - 1, rm = this.rows - 1;
+    let c0 = Math.floor((Math.min(ax, bx) - this.minX) * inv), c1 = Math.floor((Math.max(ax, bx) - this.minX) * inv);
+    let r0 = Math.floor((Math.min(ay, by) - this.minY) * inv), r1 = Math.floor((Math.max(ay, by) - this.minY) * inv);
+    if (c1 < 0 || r1 < 0 || c0 > cm || r0 > rm) return;
+    c0 = c0 < 0 ? 0 : c0; r0 = r0 < 0 ? 0 : r0; c1 = c1 > cm ? cm : c1; r1 = r1 > rm ? rm : r1;
     const ep = ++this.epoch;
     const ex = this.ex;
     for (let r = r0; r <= r1; r++) {
@@ -109,7 +117,9 @@ export class EdgeIndex {
   /** Even-odd point-in-rings test by a ray towards +x (half-open rule on edge ends). */
   inside(px: number, py: number): boolean {
     if (this.count === 0) return false;
-    const [c0, r0] = this.range(px, py, px, py);
+    const r0 = Math.floor((py - this.minY) / this.cell);
+    if (r0 < 0 || r0 >= this.rows) return false;
+    const c0 = Math.max(0, Math.floor((px - this.minX) / this.cell));
     const ep = ++this.epoch;
     const ex = this.ex;
     let odd = false;

@@ -16,12 +16,14 @@ export interface BoundResult {
   lowerBound: number;
   /** Mehlhorn's MST weight (a tree of that cost exists in the plain grid). */
   mstCost: number;
+  /** The MST over terminal nodes as [nodeA, nodeB, cost] (Voronoi boundary distances). */
+  mstEdges: [number, number, number][];
 }
 
 export function voronoiBound(g: RoutingGrid, terminalNodes: readonly number[]): BoundResult {
   const nodes = [...new Set(terminalNodes)].sort((a, b) => a - b);
   const k = nodes.length;
-  if (k <= 1) return { lowerBound: 0, mstCost: 0 };
+  if (k <= 1) return { lowerBound: 0, mstCost: 0, mstEdges: [] };
   const n = g.n;
   const dist = new Float64Array(n).fill(Infinity);
   const src = new Int32Array(n).fill(-1);
@@ -73,12 +75,15 @@ export function voronoiBound(g: RoutingGrid, terminalNodes: readonly number[]): 
   const parent = Int32Array.from({ length: k }, (_, i) => i);
   const find = (x: number): number => { while (parent[x] !== x) { parent[x] = parent[parent[x]]; x = parent[x]; } return x; };
   let mst = 0;
+  const mstEdges: [number, number, number][] = [];
   for (const [key, c] of edges) {
-    const a = find(Math.floor(key / k)), b = find(key % k);
+    const i = Math.floor(key / k), j = key % k;
+    const a = find(i), b = find(j);
     if (a === b) continue;
     parent[a] = b;
     mst += c;
+    mstEdges.push([nodes[i], nodes[j], c]);
   }
   const lowerBound = Math.max(sumNearest / 2, mst / (2 * (1 - 1 / k)));
-  return { lowerBound, mstCost: mst };
+  return { lowerBound, mstCost: mst, mstEdges };
 }

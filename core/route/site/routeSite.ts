@@ -13,7 +13,7 @@ import { graphFromTree, shapeGraph, toNetwork } from '../../network/shape';
 import { attachTerminal, type Anchor } from './attach';
 import { voronoiBound } from './lowerBound';
 import { buildRoutingGrid, DX, DY, styleMask, type GridParams, type RoutingGrid } from './routingGrid';
-import { SiteSteiner } from './siteSteiner';
+import { SiteSteiner, type SiteTree } from './siteSteiner';
 
 export interface RouteOptions {
   onProgress?: Progress;
@@ -58,7 +58,19 @@ function labelComponents(g: RoutingGrid, starts: readonly number[]): Int32Array 
   return comp;
 }
 
+/** The network with the intermediate results (grid, anchors, grid tree) for inspection and benchmarks. */
+export interface RouteDetail {
+  network: TrenchNetwork;
+  grid: RoutingGrid;
+  anchors: Anchor[];
+  tree: SiteTree;
+}
+
 export function routeSite(site: Site, terminals: Terminal[], route: RouteSettings, opts: RouteOptions = {}): TrenchNetwork {
+  return routeSiteDetailed(site, terminals, route, opts).network;
+}
+
+export function routeSiteDetailed(site: Site, terminals: Terminal[], route: RouteSettings, opts: RouteOptions = {}): RouteDetail {
   const timings: Record<string, number> = {};
   const t0 = performance.now();
   let tm = t0;
@@ -71,8 +83,10 @@ export function routeSite(site: Site, terminals: Terminal[], route: RouteSetting
   const progress = opts.onProgress ?? (() => undefined);
   const params = gridParams(site, route);
   progress('grid', 0);
-  const g = buildRoutingGrid(site, params);
+  const gridLaps: Record<string, number> = {};
+  const g = buildRoutingGrid(site, params, gridLaps);
   lap('grid');
+  Object.assign(timings, gridLaps);
   check();
 
   const unreachable: { id: string; reason: string }[] = [];
@@ -102,15 +116,17 @@ export function routeSite(site: Site, terminals: Terminal[], route: RouteSetting
   progress('attach', 1);
   check();
 
-  const solver = new SiteSteiner(g, anchors);
-  const tree = solver.solve(anchors.map((_, i) => i), {
-    seed: route.seed, timeBudgetMs: route.timeBudgetMs, onProgress: opts.onProgress, signal: opts.signal,
-  });
-  lap('solve');
-  check();
   const bound = voronoiBound(g, anchors.map((a) => a.node));
   lap('bound');
   progress('bound', 1);
+  check();
+  const solver = new SiteSteiner(g, anchors);
+  const tree = solver.solve(anchors.map((_, i) => i), {
+    seed: route.seed, timeBudgetMs: route.timeBudgetMs, onProgress: opts.onProgress, signal: opts.signal,
+    terminalTree: bound.mstEdges,
+  });
+  lap('solve');
+  check();
 
   const sg = graphFromTree(g, tree.adj, tree.nodes, anchors, terminals);
   shapeGraph(sg, g, route.style);
@@ -123,7 +139,7 @@ export function routeSite(site: Site, terminals: Terminal[], route: RouteSetting
   const cost = tree.cost;
   const lowerBound = bound.lowerBound;
   if (lowerBound > cost * (1 + 1e-9) + 1e-9) throw new Error(`routeSite: lower bound ${lowerBound} exceeds the route cost ${cost}`);
-  return {
+  const network: TrenchNetwork = {
     units: site.units,
     frame: site.frame,
     nodes,
@@ -133,4 +149,5 @@ export function routeSite(site: Site, terminals: Terminal[], route: RouteSetting
     warnings,
     timingsMs: timings,
   };
+  return { network, grid: g, anchors, tree };
 }

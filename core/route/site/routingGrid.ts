@@ -121,7 +121,9 @@ function markNear(rings: readonly Ring[], g: { x0: number; y0: number; h: number
   }
 }
 
-export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
+export function buildRoutingGrid(site: Site, params: GridParams, timings?: Record<string, number>): RoutingGrid {
+  let tLap = performance.now();
+  const lap = (k: string): void => { const t = performance.now(); if (timings) timings[k] = t - tLap; tLap = t; };
   const h = params.cell;
   if (!(h > 0)) throw new Error(`buildRoutingGrid: cell size must be positive, got ${h}`);
   const b = site.boundary;
@@ -136,6 +138,7 @@ export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
   const g = { x0, y0, h, nx, ny };
 
   const grown = growObstacles([...site.buildings, ...site.keepOuts], params.clearance);
+  lap('grid.offset');
   const free = new Uint8Array(n);
   fillRings([b], g, free, 1);
   // Nodes on the boundary line itself are not free: the trench stays strictly inside.
@@ -152,26 +155,28 @@ export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
     }
   }
 
+  lap('grid.free');
   const mask = styleMask(params.style);
   const moves = new Uint8Array(n);
   for (let j = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++) {
       const v = j * nx + i;
       if (!free[v]) continue;
-      let bits = 0;
-      for (let d = 0; d < 8; d++) {
+      // Forward directions only; the reverse move is set at the same time (symmetric).
+      for (let d = 0; d < 4; d++) {
         if (!((mask >> d) & 1)) continue;
         const ii = i + DX[d], jj = j + DY[d];
         if (ii < 0 || jj < 0 || ii >= nx || jj >= ny) continue;
         const u = jj * nx + ii;
         if (!free[u]) continue;
         if ((onEdge[v] || onEdge[u]) && blockers.touches(x0 + i * h, y0 + j * h, x0 + ii * h, y0 + jj * h)) continue;
-        bits |= 1 << d;
+        moves[v] |= 1 << d;
+        moves[u] |= 1 << (d + 4);
       }
-      moves[v] = bits;
     }
   }
 
+  lap('grid.moves');
   const pavementRings = growObstacles(site.pavements, 0);
   const pave = new Uint8Array(n);
   fillRings(pavementRings, g, pave, 1);
@@ -179,8 +184,10 @@ export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
   const crossLines = crossingLinesOf(site);
   const cross = new Uint8Array(n * 4);
   markCrossings(crossLines, g, cross);
+  lap('grid.crossings');
 
   const pavement = new EdgeIndex(pavementRings, Math.max(4 * h, 1e-9));
+  lap('grid.pavement');
   // Near a pavement edge the paved part of a move is measured exactly; elsewhere both ends agree.
   const paveNear = new Uint8Array(n);
   markNear(pavementRings, g, paveNear);
@@ -202,9 +209,11 @@ export function buildRoutingGrid(site: Site, params: GridParams): RoutingGrid {
     }
   }
 
+  const obstacles = new EdgeIndex(grown, Math.max(4 * h, 1e-9));
+  lap('grid.costs');
   return {
     params, x0, y0, h, nx, ny, n, free, moves, pave, cross, cost, blockers, grown,
-    obstacles: new EdgeIndex(grown, Math.max(4 * h, 1e-9)), boundary: b,
+    obstacles, boundary: b,
     pavement, crossLines,
   };
 }

@@ -37,6 +37,8 @@ export interface SiteTree {
 
 export interface SolveOptions {
   seed: number;
+  /** Terminal-node MST ([nodeA, nodeB, cost]) giving the order in which to join terminals while many are left. */
+  terminalTree?: readonly (readonly [number, number, number])[];
   timeBudgetMs: number;
   maxRestarts?: number;
   onProgress?: Progress;
@@ -249,6 +251,8 @@ export class SiteSteiner {
     for (const a of this.anchorsAt.get(rootNode) ?? []) this.joined[a] = 1;
     let left = members.filter((a) => !this.joined[a]).length;
     const total = left;
+    const order = this.primOrder(rootNode, members, opts.terminalTree);
+    let next = 0;
     this.targetCost = this.terminalTargetCost;
     while (left > 0) {
       if (opts.signal?.aborted) {
@@ -263,7 +267,14 @@ export class SiteSteiner {
         for (const a of this.anchorsAt.get(v) ?? []) c = Math.min(c, this.arrive[a * 8 + OPP(d)]);
         return c === Infinity ? 0 : c;
       } : null;
-      const goals = members.filter((a) => !this.joined[a]).map((a) => this.anchors[a].node);
+      // Few terminals left: all are goals (the nearest is joined). Many: the next one in MST order,
+      // so A* stays focused.
+      let goals = members.filter((a) => !this.joined[a]).map((a) => this.anchors[a].node);
+      if (goals.length > A_STAR_MAX_GOALS) {
+        while (this.joined[order[next]]) next++;
+        goals = [this.anchors[order[next]].node];
+        for (const a of members) if (!this.joined[a] && this.anchors[a].node !== goals[0] && this.mark[this.anchors[a].node] === 2) this.mark[this.anchors[a].node] = 0;
+      }
       const r = this.search(this.treeList, seedBend, Infinity, goals);
       for (const a of members) if (this.mark[this.anchors[a].node] === 2) this.mark[this.anchors[a].node] = 0;
       if (r.state < 0) throw new Error('siteSteiner: a terminal of the routed component was not reached');
@@ -274,6 +285,33 @@ export class SiteSteiner {
       if (first) opts.onProgress?.('route', 0.6 * (1 - left / Math.max(1, total)));
     }
     return true;
+  }
+
+  /** Members in Prim order over the terminal MST from the root's node (plain member order without a tree). */
+  private primOrder(rootNode: number, members: readonly number[], tree?: readonly (readonly [number, number, number])[]): number[] {
+    if (!tree || tree.length === 0) return members.slice();
+    const adj = new Map<number, [number, number][]>();
+    for (const [a, b, c] of tree) {
+      (adj.get(a) ?? adj.set(a, []).get(a)!).push([b, c]);
+      (adj.get(b) ?? adj.set(b, []).get(b)!).push([a, c]);
+    }
+    const seen = new Set<number>([rootNode]);
+    const frontier: [number, number][] = [...(adj.get(rootNode) ?? [])];
+    const nodeOrder: number[] = [rootNode];
+    while (frontier.length) {
+      let bi = 0;
+      for (let i = 1; i < frontier.length; i++) if (frontier[i][1] < frontier[bi][1] || (frontier[i][1] === frontier[bi][1] && frontier[i][0] < frontier[bi][0])) bi = i;
+      const [v] = frontier.splice(bi, 1)[0];
+      if (seen.has(v)) continue;
+      seen.add(v);
+      nodeOrder.push(v);
+      for (const e of adj.get(v) ?? []) if (!seen.has(e[0])) frontier.push(e);
+    }
+    const memberSet = new Set(members);
+    const out: number[] = [];
+    for (const v of nodeOrder) for (const a of this.anchorsAt.get(v) ?? []) if (memberSet.has(a)) out.push(a);
+    for (const a of members) if (!out.includes(a)) out.push(a);
+    return out;
   }
 
   private isAnchorNode(v: number): boolean {
