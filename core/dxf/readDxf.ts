@@ -55,11 +55,17 @@ export function readDxfBytes(bytes: Uint8Array, opts: ReadDxfOptions = {}): Resu
   return readDxf(text, opts);
 }
 
-function tooLarge(size: number, max: number): DxfReadError {
-  const mb = (n: number): string => (n / (1024 * 1024)).toFixed(1);
+/** A byte count for messages: MB with one decimal from 1 MB up, else kB or bytes. */
+export function formatBytes(n: number): string {
+  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(1)} MB`;
+  if (n >= 1024) return `${(n / 1024).toFixed(1)} kB`;
+  return `${n} bytes`;
+}
+
+export function tooLarge(size: number, max: number): DxfReadError {
   return {
     kind: 'too-large',
-    message: `the file is ${mb(size)} MB, over the ${mb(max)} MB limit; purge unused layers and blocks, or raise the size limit`,
+    message: `the file is ${formatBytes(size)}, over the ${formatBytes(max)} limit; purge unused layers and blocks, or raise the size limit`,
   };
 }
 

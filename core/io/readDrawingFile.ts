@@ -2,7 +2,7 @@
 
 import { readFile, stat } from 'node:fs/promises';
 import type { Drawing, DxfReadErrorKind } from '../dxf/drawing';
-import { DEFAULT_MAX_BYTES, readDxfBytes, type ReadDxfOptions } from '../dxf/readDxf';
+import { DEFAULT_MAX_BYTES, readDxfBytes, tooLarge, type ReadDxfOptions } from '../dxf/readDxf';
 import { err, type Result } from '../result';
 
 export interface DrawingFileError {
@@ -23,8 +23,7 @@ export async function readDrawingFile(path: string, opts: ReadDxfOptions = {}): 
   }
   const max = opts.maxBytes ?? DEFAULT_MAX_BYTES;
   if (size > max) {
-    const mb = (n: number): string => (n / (1024 * 1024)).toFixed(1);
-    return err({ kind: 'too-large', path, message: `${path}: the file is ${mb(size)} MB, over the ${mb(max)} MB limit; purge unused layers and blocks, or raise the size limit` });
+    return err({ kind: 'too-large', path, message: `${path}: ${tooLarge(size, max).message}` });
   }
   let bytes: Uint8Array;
   try {

@@ -171,7 +171,7 @@ describe('readDxf: bad input gives an error value', () => {
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.error.kind).toBe('too-large');
-      expect(r.error.message).toMatch(/MB/);
+      expect(r.error.message).toMatch(/the file is 1\d\.\d kB, over the 1000 bytes limit/);
     }
   });
 
