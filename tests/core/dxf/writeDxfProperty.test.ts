@@ -23,7 +23,9 @@ const network = fc.record({
   units: fc.constantFrom<'m' | 'ft'>('m', 'ft'),
 });
 
-function toInput(n: fc.Infer<typeof network>): TrenchDrawingInput {
+type NetCase = typeof network extends fc.Arbitrary<infer T> ? T : never;
+
+function toInput(n: NetCase): TrenchDrawingInput {
   const segments: TrenchSegment[] = n.segments.map((s, i) => {
     const points = Float64Array.from(s.pts.flat());
     let length = 0;
