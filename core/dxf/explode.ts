@@ -4,7 +4,7 @@
 import type { DrawingEntity, SourceKind } from './drawing';
 import { type Affine, IDENTITY, applyInPlace, compose, insertTransform, isIdentity, maxStretch } from './affine';
 import { circleRing, ellipsePoints, interpolateFitPoints, pushArc, pushBulge, splinePoints } from './tessellate';
-import type { RawCircle, RawPolyline } from './parserHandlers';
+import type { RawCircle, RawEllipse, RawPolyline } from './parserHandlers';
 import { plainText } from './plainText';
 
 export interface ExplodeLimits { maxEntities: number; maxBlockDepth: number; chordTolerance: number }
@@ -102,12 +102,15 @@ export class Exploder {
         return;
       }
       case 'ELLIPSE': {
-        if (!e.center || !e.majorAxisEndPoint) return this.skip('ELLIPSE (incomplete)');
-        const { points, closed } = ellipsePoints(
-          e.center.x, e.center.y, e.majorAxisEndPoint.x, e.majorAxisEndPoint.y, e.axisRatio ?? 1,
-          e.startAngle ?? 0, e.endAngle ?? TWO_PI, tol,
+        const el = e as RawEllipse;
+        // centre and major axis are WCS; the minor axis is extrusion × major, so with extrusion
+        // (0,0,-1) the ellipse runs the other way: mirror across the major axis (DXF reference)
+        const r = ellipsePoints(
+          el.center.x, el.center.y, el.majorAxisEndPoint.x, el.majorAxisEndPoint.y, el.axisRatio,
+          el.startAngle, el.endAngle, tol,
         );
-        this.poly(layer, 'ELLIPSE', points, closed, m, handle);
+        const points = el.extrusionZ < 0 ? mirrorAcross(r.points, el.center.x, el.center.y, el.majorAxisEndPoint.x, el.majorAxisEndPoint.y) : r.points;
+        this.poly(layer, 'ELLIPSE', points, r.closed, m, handle);
         return;
       }
       case 'SPLINE':
@@ -234,4 +237,18 @@ function dedupe(pts: number[], closed: boolean): void {
   }
   pts.length = w;
   if (closed && w >= 4 && pts[0] === pts[w - 2] && pts[1] === pts[w - 1]) pts.length = w - 2;
+}
+
+/** Reflect points across the line through (cx, cy) with direction (dx, dy). */
+function mirrorAcross(pts: number[], cx: number, cy: number, dx: number, dy: number): number[] {
+  const len = Math.hypot(dx, dy) || 1;
+  const ux = dx / len, uy = dy / len;
+  const out = new Array<number>(pts.length);
+  for (let i = 0; i < pts.length; i += 2) {
+    const x = pts[i] - cx, y = pts[i + 1] - cy;
+    const along = x * ux + y * uy;
+    out[i] = cx + 2 * along * ux - x;
+    out[i + 1] = cy + 2 * along * uy - y;
+  }
+  return out;
 }

@@ -1,7 +1,7 @@
-// Entity handlers registered into dxf-parser in place of its own for POLYLINE, LWPOLYLINE and
-// CIRCLE: the stock POLYLINE handler loops forever when SEQEND is missing, the stock LWPOLYLINE
-// handler throws on zero vertices, and the stock CIRCLE handler drops the extrusion direction
-// (a mirrored circle has 210/220/230 = 0,0,-1). Group codes: DXF reference.
+// Entity handlers registered into dxf-parser in place of its own for POLYLINE, LWPOLYLINE, CIRCLE
+// and ELLIPSE: the stock POLYLINE handler loops forever when SEQEND is missing, the stock LWPOLYLINE
+// handler throws on zero vertices, and the stock CIRCLE and ELLIPSE handlers drop the extrusion
+// direction (a mirrored circle or ellipse has 210/220/230 = 0,0,-1). Group codes: DXF reference.
 
 export interface Group { code: number; value: number | string | boolean }
 export interface GroupScanner {
@@ -123,6 +123,45 @@ export class CircleHandler {
       else if (g.code === 40) e.radius = num(g.value);
       else if (g.code === 230) e.extrusionZ = num(g.value);
       else common(e, g);
+      g = scanner.next();
+    }
+    return e;
+  }
+}
+
+export interface RawEllipse {
+  type: 'ELLIPSE';
+  layer?: string;
+  handle?: string | number;
+  inPaperSpace?: boolean;
+  center: { x: number; y: number };
+  majorAxisEndPoint: { x: number; y: number };
+  axisRatio: number;
+  startAngle: number;
+  endAngle: number;
+  extrusionZ: number;
+}
+
+export class EllipseHandler {
+  public ForEntityName = 'ELLIPSE' as const;
+  public parseEntity(scanner: GroupScanner, _start: Group): RawEllipse {
+    const e: RawEllipse = {
+      type: 'ELLIPSE', center: { x: 0, y: 0 }, majorAxisEndPoint: { x: 1, y: 0 }, axisRatio: 1,
+      startAngle: 0, endAngle: 2 * Math.PI, extrusionZ: 1,
+    };
+    let g = scanner.next();
+    while (g.code !== 0) {
+      switch (g.code) {
+        case 10: e.center.x = num(g.value); break;
+        case 20: e.center.y = num(g.value); break;
+        case 11: e.majorAxisEndPoint.x = num(g.value); break;
+        case 21: e.majorAxisEndPoint.y = num(g.value); break;
+        case 40: e.axisRatio = num(g.value); break;
+        case 41: e.startAngle = num(g.value); break;
+        case 42: e.endAngle = num(g.value); break;
+        case 230: e.extrusionZ = num(g.value); break;
+        default: common(e, g);
+      }
       g = scanner.next();
     }
     return e;

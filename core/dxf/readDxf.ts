@@ -1,12 +1,12 @@
 // The DXF reader: ASCII DXF text (R12 / AC1009 and R2000+) → `Drawing`, built on dxf-parser with
-// robust handlers for POLYLINE, LWPOLYLINE and CIRCLE (see parserHandlers.ts). Bad input returns a
+// robust handlers for POLYLINE, LWPOLYLINE, CIRCLE and ELLIPSE (see parserHandlers.ts). Bad input returns a
 // DxfReadError value; nothing here throws on malformed files.
 
 import DxfParser from 'dxf-parser';
 import type { Drawing, DrawingLayer, DxfReadError, Extents } from './drawing';
 import { err, ok, type Result } from '../result';
 import { metresPerInsUnit, M_PER_FT } from '../units';
-import { CircleHandler, LwPolylineHandler, PolylineHandler } from './parserHandlers';
+import { CircleHandler, EllipseHandler, LwPolylineHandler, PolylineHandler } from './parserHandlers';
 import { Exploder } from './explode';
 import { findTablesSection, readLayerTable, type LayerRecord } from './layerTable';
 
@@ -82,6 +82,7 @@ export function readDxf(text: string, opts: ReadDxfOptions = {}): Result<Drawing
   parser.registerEntityHandler(PolylineHandler as any);
   parser.registerEntityHandler(LwPolylineHandler as any);
   parser.registerEntityHandler(CircleHandler as any);
+  parser.registerEntityHandler(EllipseHandler as any);
   // the TABLES section is read by readLayerTable and kept away from dxf-parser (see layerTable.ts)
   const tables = findTablesSection(text);
   const layerRecords = tables ? readLayerTable(text.slice(tables.start, tables.end)) : [];

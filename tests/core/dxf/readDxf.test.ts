@@ -84,7 +84,10 @@ describe('readDxf: entities', () => {
     const tol = defaultChordTolerance(6);
     expect(tol).toBeCloseTo(0.01, 15); // 1 cm in metres
     const fence = polys(d, 'EX-FENCE');
-    const ell = fence.find((e) => e.source === 'ELLIPSE')!;
+    const ell = fence.find((e) => e.source === 'ELLIPSE' && e.points[0] > 50 && e.points[0] < 150)!;
+    const mell = fence.find((e) => e.source === 'ELLIPSE' && e.points[0] > 150)!;
+    // an ELLIPSE with extrusion (0,0,-1) runs the other way round its centre (minor axis = N × major)
+    expectSameCurve(pairs(mell.points), exp.mirroredEllipse, tol + 0.0005);
     const sp = fence.find((e) => e.source === 'SPLINE' && e.points[0] === 0 && e.points[1] === 50)!;
     // ezdxf evaluates the exact curves (flattened at 0.5 mm): the two agree within our tolerance plus theirs
     expectSameCurve(pairs(ell.points), exp.halfEllipse, tol + 0.0005);
