@@ -76,6 +76,8 @@ export interface Summary {
   cost: { route: number; lowerBound: number; gap: number; takeoffTotal: number; currency: string };
   pullBoxes: number;
   runtimeMs: Record<Stage | 'total', number>;
+  /** The router's own steps (grid, attach, solve, bound, shape), when it reports them. */
+  routeStepsMs?: Record<string, number>;
   files: Record<OutputKey, string>;
   layers: DxfLayerNames;
   /** Layer roles used; `rolesSuggested` when they were guessed from layer names and geometry. */
@@ -233,6 +235,7 @@ export async function runPipeline(input: PipelineInput, opts: PipelineOptions = 
     cost: { route: round(net.quality.cost), lowerBound: round(net.quality.lowerBound), gap: round(net.quality.gap, 4), takeoffTotal: round(takeOff.totals.cost, 2), currency: takeOff.currency },
     pullBoxes: takeOff.pullBoxes.reduce((a, b) => a + b.utilities.length, 0),
     runtimeMs,
+    ...(net.timingsMs ? { routeStepsMs: Object.fromEntries(Object.entries(net.timingsMs).map(([k, v]) => [k, round(v, 1)])) } : {}),
     files: { ...OUTPUT_FILES },
     layers: names,
     roles: site.roles,
