@@ -60,6 +60,12 @@ export class Exploder {
   }
 
   private poly(layer: string, source: SourceKind, pts: number[], closed: boolean, m: Affine, handle?: string): void {
+    for (let i = 0; i < pts.length; i++) {
+      if (!Number.isFinite(pts[i])) {
+        this.skip(`${source} (coordinates not finite numbers)`);
+        return;
+      }
+    }
     dedupe(pts, closed);
     if (pts.length < 4) {
       this.skip(`${source} (degenerate)`);
@@ -123,6 +129,7 @@ export class Exploder {
         if (!p || typeof e.text !== 'string') return this.skip(`${e.type} (incomplete)`);
         const pt = [p.x, p.y];
         applyInPlace(m, pt);
+        if (!Number.isFinite(pt[0]) || !Number.isFinite(pt[1])) return this.skip(`${e.type} (coordinates not finite numbers)`);
         const h = (e.type === 'TEXT' ? e.textHeight : e.height) ?? 1;
         const rot = (Math.atan2(m[1], m[0]) * 180) / Math.PI + (e.rotation ?? 0);
         const ent: DrawingEntity = {

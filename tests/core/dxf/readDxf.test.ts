@@ -212,6 +212,19 @@ describe('readDxf: bad input gives an error value', () => {
     if (r.ok) expect(r.value.entities).toHaveLength(1);
   });
 
+  it('skips entities whose coordinates are not finite numbers, with a warning', () => {
+    const ents = ['0', 'LINE', '8', 'A', '10', 'nan', '20', '0', '11', '1', '21', '1',
+      '0', 'LINE', '8', 'A', '10', '1e999', '20', '0', '11', '1', '21', '1',
+      '0', 'LINE', '8', 'A', '10', '2', '20', '2', '11', '3', '21', '3'].join('\n');
+    const r = readDxf(minimal(ents));
+    expect(r.ok).toBe(true);
+    if (r.ok) {
+      expect(r.value.entities).toHaveLength(1);
+      expect(r.value.header.extents).toEqual({ minX: 2, minY: 2, maxX: 3, maxY: 3 });
+      expect(r.value.warnings.join(' ')).toMatch(/skipped 2 LINE \(coordinates not finite numbers\) entities/);
+    }
+  });
+
   it('reports a file without an ENTITIES section', () => {
     const text = ['0', 'SECTION', '2', 'HEADER', '0', 'ENDSEC', '0', 'EOF'].join('\n');
     const r = readDxf(text);
