@@ -69,6 +69,18 @@ describe('furrow route on the demo site', () => {
   });
 });
 
+describe('furrow route without a roles file', () => {
+  it('suggests the layer roles and prints the suggestion (DESIGN.md contract)', async () => {
+    const out = join(TMP, 'suggested');
+    const r = await furrow([join(DEMO, 'site.dxf'), '--services', join(DEMO, 'services.csv'), '--out', out]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/Layer roles were suggested \(no --roles file\): .*BLDG-OUTLINE=building/);
+    const s = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
+    expect(s.rolesSuggested).toBe(true);
+    expect(s.roles['BLDG-OUTLINE']).toBe('building');
+  });
+});
+
 describe('furrow route refuses bad input with exit 2 and a message naming the file', () => {
   const cases: [string, string[], RegExp][] = [
     ['a binary drawing', [join(FIX, 'binary.dxf'), '--services', join(DEMO, 'services.csv'), '--out', join(TMP, 'x')], /binary\.dxf: this is a binary DXF/],
