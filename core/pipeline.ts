@@ -213,7 +213,7 @@ export async function runPipeline(input: PipelineInput, opts: PipelineOptions = 
   const takeoffXlsx = await writeTakeOffXlsx(takeOff, meta);
   check();
   progress('write', 0.6);
-  const reportPdf = await writeReportPdf(takeOff, net, meta);
+  const reportPdf = await writeReportPdf(takeOff, net, meta, { site });
   end('write');
   runtimeMs.total = round(now() - t0, 1);
 

@@ -19,7 +19,8 @@ export function helpText(): string {
     'Usage:',
     ...COMMANDS.map((c) => `  ${c.usage}`),
     '',
-    'Exit codes: 0 done; 2 bad input; 3 done in part (some points unreachable).',
+    'Exit codes: 0 done; 2 bad input; 3 done in part (some points unreachable); 130 cancelled (Ctrl-C).',
+    'Progress goes to stderr as a bar on a terminal; set FURROW_PROGRESS=lines for one line per stage.',
     '',
     noticeText('\n'),
   ].join('\n');
