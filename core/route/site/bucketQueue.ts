@@ -32,6 +32,13 @@ export class BucketQueue {
     this.size = 0;
   }
 
+  /** Lower edge of the lowest non-empty bucket (Infinity when empty). */
+  peekFloor(): number {
+    if (this.size === 0) return Infinity;
+    while (this.head[this.cur] === -1) this.cur++;
+    return this.cur / this.inv;
+  }
+
   /** Lower edge of the bucket being emptied (no later pop has a smaller key). */
   floorKey(): number {
     return this.cur / this.inv;

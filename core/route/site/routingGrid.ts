@@ -42,7 +42,7 @@ export interface RoutingGrid {
   /** Bit d set when the move from the node in direction d is allowed (style applied). */
   moves: Uint8Array;
   pave: Uint8Array;
-  /** Crossing count of the edge from node v in direction d (d 0..3) at v*4+d. */
+  /** Half-crossings (see edgeCuts) of the edge from node v in direction d (d 0..3) at v*4+d. */
   cross: Uint8Array;
   /** Cost of the allowed move from v in direction d at v*8+d (see moveCost). */
   cost: Float32Array;
@@ -205,7 +205,7 @@ export function buildRoutingGrid(site: Site, params: GridParams, timings?: Recor
         ? pavedMove(pavement, pave[v], pave[u], vx, vy, vx + DX[d] * h, vy + DY[d] * h)
         : pave[v] ? len : 0;
       const c = d < 4 ? cross[v * 4 + d] : cross[u * 4 + d - 4];
-      cost[v * 8 + d] = len + (f - 1) * paved + c * params.crossingPenalty;
+      cost[v * 8 + d] = len + (f - 1) * paved + c * 0.5 * params.crossingPenalty;
     }
   }
 
@@ -242,7 +242,7 @@ function markCrossings(lines: readonly CrossingLine[], g: { x0: number; y0: numb
               if (seen.has(e)) continue;
               seen.add(e);
               const ax = g.x0 + ii * g.h, ay = g.y0 + jj * g.h, bx = g.x0 + i2 * g.h, by = g.y0 + j2 * g.h;
-              if (edgeCuts(ax, ay, bx, by, cx, cy, dx, dy) && cross[e] < 255) cross[e]++;
+              cross[e] = Math.min(255, cross[e] + edgeCuts(ax, ay, bx, by, cx, cy, dx, dy));
             }
           }
         }
@@ -251,15 +251,20 @@ function markCrossings(lines: readonly CrossingLine[], g: { x0: number; y0: numb
   }
 }
 
-/** Grid edge a→b (half-open at b) cuts feature segment c→d (half-open at d). */
-function edgeCuts(ax: number, ay: number, bx: number, by: number, cx: number, cy: number, dx: number, dy: number): boolean {
+/**
+ * Half-crossings of grid edge a–b with feature segment c→d (half-open at d): 2 when the feature
+ * passes through the edge's interior, 1 when it touches an end node — a path through that node
+ * meets two such edges, so it pays one crossing whichever way it turns (as the shaped line does).
+ */
+function edgeCuts(ax: number, ay: number, bx: number, by: number, cx: number, cy: number, dx: number, dy: number): number {
   const rx = bx - ax, ry = by - ay, sx = dx - cx, sy = dy - cy;
   const den = rx * sy - ry * sx;
-  if (den === 0) return false;
+  if (den === 0) return 0;
   const qx = cx - ax, qy = cy - ay;
   const t = (qx * sy - qy * sx) / den;
   const u = (qx * ry - qy * rx) / den;
-  return t >= 0 && t < 1 && u >= 0 && u < 1;
+  if (u < 0 || u >= 1 || t < 0 || t > 1) return 0;
+  return t === 0 || t === 1 ? 1 : 2;
 }
 
 /** Node coordinates. */

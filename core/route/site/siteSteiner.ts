@@ -51,7 +51,9 @@ const OPP = (d: number): number => (d + 4) & 7;
 export const STATES_PER_MS = 5000;
 /** A* guides a construction round while at most this many terminals are left (the estimate scans them all). */
 const A_STAR_MAX_GOALS = 24;
-/** Margin, in cells, around the removed paths where a star exchange looks for its hub. */
+/** Side of the coarse cells that group tree nodes for lazy seeding, in grid cells. */
+const CELL = 16;
+/** Margin, in cells, around removed paths where an exchange looks for the new connection. */
 const STAR_MARGIN = 8;
 
 function popcount8(b: number): number {
@@ -97,7 +99,6 @@ export class SiteSteiner {
   /** States settled so far (the deterministic work measure). */
   work = 0;
   private workLimit = Infinity;
-  private wallLimit = Infinity;
 
   constructor(g: RoutingGrid, anchors: readonly Anchor[]) {
     this.g = g;
@@ -134,7 +135,7 @@ export class SiteSteiner {
    * when `goals` lists the target nodes (estimate: octilinear or rectilinear distance to the
    * nearest goal at the cheapest surface — a lower bound on any path's cost).
    */
-  private search(sources: readonly number[], seedBend: ((v: number, d: number) => number) | null, limit = Infinity, goals: readonly number[] | null = null): { state: number; cost: number } {
+  private search(sources: readonly number[], seedBend: ((v: number, d: number) => number) | null, limit = Infinity, goals: readonly number[] | null = null, win: readonly number[] | null = null, lazy: readonly { lb: number; nodes: number[] }[] | null = null): { state: number; cost: number } {
     const g = this.g, off = this.off, bend = this.bend, mask = this.mask;
     const dist = this.dist, pred = this.pred, stamp = this.stamp, mark = this.mark, heap = this.heap, cost = g.cost;
     const ep = ++this.epoch;
@@ -163,9 +164,11 @@ export class SiteSteiner {
       }
       return m * scale;
     };
-    for (const v of sources) {
+    const wx0 = win ? win[0] : 0, wy0 = win ? win[1] : 0, wx1 = win ? win[2] : nx, wy1 = win ? win[3] : g.ny;
+    const outside = (v: number): boolean => { const x = v % nx, y = (v - x) / nx; return x < wx0 || x > wx1 || y < wy0 || y > wy1; };
+    const seed = (v: number): void => {
       const bits = g.moves[v] & mask;
-      if (bits === 0) continue;
+      if (bits === 0 || (win && outside(v))) return;
       for (let d = 0; d < 8; d++) {
         if (!((bits >> d) & 1)) continue;
         const u = v + off[d];
@@ -179,9 +182,14 @@ export class SiteSteiner {
           heap.push(c + est(u), s, c);
         }
       }
-    }
+    };
+    for (const v of sources) seed(v);
+    // Lazy sources: groups of tree nodes released when the search could reach their bound.
+    let li = 0;
+    const width = this.width;
     let best = limit, bestState = -1;
     for (;;) {
+      if (lazy) while (li < lazy.length && lazy[li].lb < best && lazy[li].lb < heap.peekFloor() + width) for (const v of lazy[li++].nodes) seed(v);
       const s = heap.pop();
       if (s < 0 || heap.floorKey() >= best) break;
       const k = heap.lastG;
@@ -197,7 +205,7 @@ export class SiteSteiner {
       for (let e = 0; e < 8; e++) {
         if (e === back || !((bits >> e) & 1)) continue;
         const u = v + off[e];
-        if (mark[u] === 1) continue;
+        if (mark[u] === 1 || (win && outside(u))) continue;
         const nk = k + bend[d * 8 + e] + cost[v * 8 + e];
         const s2 = u * 8 + e;
         if (stamp[s2] !== ep || nk < dist[s2]) {
@@ -224,7 +232,7 @@ export class SiteSteiner {
       if (this.pred[s] < 0) { nodes.push(p); break; }
       s = this.pred[s];
     }
-    for (const v of nodes) if (this.mark[v] !== 1) { this.mark[v] = 1; this.treeList.push(v); }
+    for (const v of nodes) if (this.mark[v] !== 1) { this.mark[v] = 1; this.treeList.push(v); this.addToCell(v); }
     return nodes;
   }
 
@@ -248,6 +256,8 @@ export class SiteSteiner {
     this.rootNode = rootNode;
     this.mark[rootNode] = 1;
     this.treeList.push(rootNode);
+    this.cells.clear();
+    this.addToCell(rootNode);
     for (const a of this.anchorsAt.get(rootNode) ?? []) this.joined[a] = 1;
     let left = members.filter((a) => !this.joined[a]).length;
     const total = left;
@@ -275,7 +285,7 @@ export class SiteSteiner {
         goals = [this.anchors[order[next]].node];
         for (const a of members) if (!this.joined[a] && this.anchors[a].node !== goals[0] && this.mark[this.anchors[a].node] === 2) this.mark[this.anchors[a].node] = 0;
       }
-      const r = this.search(this.treeList, seedBend, Infinity, goals);
+      const r = lone ? this.search(this.treeList, seedBend, Infinity, goals) : this.search([], null, Infinity, goals, null, this.lazyCells(goals));
       for (const a of members) if (this.mark[this.anchors[a].node] === 2) this.mark[this.anchors[a].node] = 0;
       if (r.state < 0) throw new Error('siteSteiner: a terminal of the routed component was not reached');
       this.addPath(r.state);
@@ -311,6 +321,38 @@ export class SiteSteiner {
     const out: number[] = [];
     for (const v of nodeOrder) for (const a of this.anchorsAt.get(v) ?? []) if (memberSet.has(a)) out.push(a);
     for (const a of members) if (!out.includes(a)) out.push(a);
+    return out;
+  }
+
+  /** Tree nodes by coarse cell (CELL × CELL nodes), for lazy seeding during construction. */
+  private readonly cells = new Map<number, number[]>();
+
+  private addToCell(v: number): void {
+    const x = v % this.g.nx, y = (v - x) / this.g.nx;
+    const key = Math.floor(y / CELL) * Math.ceil(this.g.nx / CELL) + Math.floor(x / CELL);
+    const list = this.cells.get(key);
+    if (list) list.push(v); else this.cells.set(key, [v]);
+  }
+
+  /** Cells of tree nodes with a lower bound on any path from them to a goal, cheapest first. */
+  private lazyCells(goals: readonly number[]): { lb: number; nodes: number[] }[] {
+    const nx = this.g.nx, cols = Math.ceil(nx / CELL);
+    const scale = 0.999 * this.g.h * Math.min(1, this.g.params.pavementFactor);
+    const octile = this.mask === 0xff;
+    const out: { lb: number; nodes: number[]; key: number }[] = [];
+    for (const [key, nodes] of this.cells) {
+      const x0 = (key % cols) * CELL, y0 = Math.floor(key / cols) * CELL, x1 = x0 + CELL - 1, y1 = y0 + CELL - 1;
+      let m = Infinity;
+      for (const t of goals) {
+        const gx = t % nx, gy = (t - gx) / nx;
+        const dx = Math.max(0, x0 - gx, gx - x1), dy = Math.max(0, y0 - gy, gy - y1);
+        const o = octile ? Math.max(dx, dy) + (Math.SQRT2 - 1) * Math.min(dx, dy) : dx + dy;
+        if (o < m) m = o;
+      }
+      // One step back: a seed sits a move beyond its tree node.
+      out.push({ lb: Math.max(0, (m - 1.5) * scale), nodes, key });
+    }
+    out.sort((a, b) => a.lb - b.lb || a.key - b.key);
     return out;
   }
 
@@ -420,7 +462,14 @@ export class SiteSteiner {
           for (const v of b) this.mark[v] = 2;
         }
         this.targetCost = () => 0;
-        const r = this.search(a, null, kp.cost - 1e-9, b);
+        // The new connection is sought near the old one: the path's box plus a margin.
+        const win = [Infinity, Infinity, -Infinity, -Infinity];
+        for (const v of kp.nodes) {
+          const xi = v % this.g.nx, yi = (v - xi) / this.g.nx;
+          win[0] = Math.min(win[0], xi - STAR_MARGIN); win[1] = Math.min(win[1], yi - STAR_MARGIN);
+          win[2] = Math.max(win[2], xi + STAR_MARGIN); win[3] = Math.max(win[3], yi + STAR_MARGIN);
+        }
+        const r = this.search(a, null, kp.cost - 1e-9, b, win);
         if (r.state >= 0 && r.cost < kp.cost - 1e-9) {
           for (let i = 1; i < kp.nodes.length - 1; i++) this.mark[kp.nodes[i]] = 0;
           this.addPathRaw(r.state);
@@ -686,21 +735,20 @@ export class SiteSteiner {
     if (missing.length) throw new Error(`siteSteiner: internal error, tree misses anchors ${missing.join(', ')}`);
   }
 
-  /** Past the work budget (deterministic) or the wall-clock guard. */
+  /** Past the work budget (deterministic: no clock is read). */
   private over(): boolean {
-    return this.work > this.workLimit || performance.now() > this.wallLimit;
+    return this.work > this.workLimit;
   }
 
   /**
    * Solves for the anchors in `members` (all in one grid component). The time budget becomes a
    * work budget of STATES_PER_MS settled states per millisecond, so the same input gives the same
-   * tree on any machine; a wall-clock guard at three times the budget stops a very slow machine.
+   * tree on any machine (a busy machine takes longer than the budget; the signal still cancels).
    * The first construction always completes.
    */
   solve(members: readonly number[], opts: SolveOptions): SiteTree {
     this.work = 0;
     this.workLimit = opts.timeBudgetMs * STATES_PER_MS;
-    this.wallLimit = performance.now() + 3 * opts.timeBudgetMs;
     if (members.length === 0) return { adj: new Uint8Array(this.g.n), nodes: new Int32Array(0), cost: 0, joined: [], rounds: 0 };
     const rand = rng(opts.seed);
     const order = members.slice();
