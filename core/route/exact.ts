@@ -31,12 +31,12 @@ export function exactFits(n: number, k: number, maxStates = EXACT_DEFAULT_MAX_ST
 
 /**
  * Optimal Steiner tree. Terminals must be distinct and connected. Returns null when the table
- * would exceed `maxStates` or when `signal` is aborted during the run.
+ * would exceed `maxStates`, or when `signal` is aborted or `stop()` turns true during the run.
  */
 export function steinerExact(
   g: Graph,
   terminals: ArrayLike<number>,
-  opts: { maxStates?: number; signal?: { readonly aborted: boolean } } = {},
+  opts: { maxStates?: number; signal?: { readonly aborted: boolean }; stop?: () => boolean } = {},
 ): ExactResult | null {
   const k = terminals.length;
   const n = g.n;
@@ -76,7 +76,7 @@ export function steinerExact(
   }
   for (let S = 1; S <= full; S++) {
     if ((S & (S - 1)) === 0) continue; // singletons done
-    if (opts.signal?.aborted) return null;
+    if (opts.signal?.aborted || opts.stop?.()) return null;
     const base = S * n;
     const low = S & -S;
     for (let A = (S - 1) & S; A > 0; A = (A - 1) & S) {

@@ -21,6 +21,9 @@ export class LocalSearch {
   private touchedCount = 0;
   private readonly heap: IndexedHeap;
   private readonly removed: Uint8Array; // per edge id
+  private readonly seed: Uint8Array; // tree vertices a reconnection may start from
+  private readonly seedList: number[] = [];
+  private readonly treeDist: Float64Array;
   private readonly scratch: TreeScratch;
   // tree index (rebuilt after each accepted move)
   private verts: number[] = [];
@@ -36,6 +39,8 @@ export class LocalSearch {
     this.touched = new Int32Array(g.n);
     this.heap = new IndexedHeap(g.n);
     this.removed = new Uint8Array(g.m);
+    this.seed = new Uint8Array(g.n);
+    this.treeDist = new Float64Array(g.n);
     this.scratch = new TreeScratch(g);
   }
 
@@ -53,7 +58,7 @@ export class LocalSearch {
       this.index(tree);
       let paths = this.keyPaths(isTerminal, g);
       for (let p = 0; p < paths.length && !stop(); p++) {
-        const next = this.tryMove(tree, paths[p].edges, paths[p].inner, paths[p].cost, isTerminal, g);
+        const next = this.tryMove(tree, paths[p].edges, paths[p].inner, paths[p].cost, isTerminal, g, stop);
         if (next) {
           tree = next;
           improved = true;
@@ -74,7 +79,7 @@ export class LocalSearch {
           for (const x of p.inner) inner.push(x);
           cost += p.cost;
         }
-        const next = this.tryMove(tree, rem, inner, cost, isTerminal, g);
+        const next = this.tryMove(tree, rem, inner, cost, isTerminal, g, stop);
         if (next) {
           tree = next;
           improved = true;
@@ -332,18 +337,23 @@ export class LocalSearch {
    * non-decreasing order, so once the popped distance reaches the best entry into the other
    * piece, that entry is the shortest connection.
    */
-  private reconnectTwo(tree: Int32Array, remCost: number, isTerminal: Uint8Array, g: Graph): Int32Array | null {
+  private reconnectTwo(tree: Int32Array, remCost: number, isTerminal: Uint8Array, g: Graph, stop: () => boolean): Int32Array | null {
     const { label, dist, pred, heap } = this;
     const treeCount = this.touchedCount;
     let size0 = 0;
     for (let i = 0; i < treeCount; i++) if (label[this.touched[i]] === 0) size0++;
     const src = size0 <= treeCount - size0 ? 0 : 1;
     const tgt = 1 - src;
-    for (let i = 0; i < treeCount; i++) if (label[this.touched[i]] === src) heap.push(this.touched[i], 0);
+    for (let i = 0; i < treeCount; i++) if (label[this.touched[i]] === src && this.seed[this.touched[i]]) heap.push(this.touched[i], 0);
     const { offsets, adj, adjEdge, weight } = g;
     let best = remCost - EPS;
     let bestEdge = -1;
+    let steps = 0;
     while (heap.size > 0) {
+      if ((++steps & 1023) === 0 && stop()) {
+        bestEdge = -1; // abandoned: the move is not applied
+        break;
+      }
       const u = heap.pop();
       const du = dist[u];
       if (du >= best) break;
@@ -373,8 +383,43 @@ export class LocalSearch {
     return this.rebuild(tree, [bestEdge], isTerminal, g);
   }
 
+  /**
+   * Seeds for the reconnection search: tree vertices within tree distance `radius` of the removed
+   * part. A cheaper reconnection starting farther away would be a different move; bounding the
+   * seeds keeps each move local instead of searching around the whole tree.
+   */
+  private markSeeds(rem: number[], radius: number, g: Graph): void {
+    const { label, seed, seedList, treeDist, localId, tOff, tAdj, tEdge, verts, removed } = this;
+    const stack: number[] = [];
+    for (const e of rem)
+      for (const x of [g.edgeU[e], g.edgeV[e]]) {
+        if (label[x] < 0 || seed[x]) continue;
+        seed[x] = 1;
+        seedList.push(x);
+        treeDist[x] = 0;
+        stack.push(x);
+      }
+    while (stack.length > 0) {
+      const x = stack.pop()!;
+      const i = localId[x];
+      for (let j = tOff[i]; j < tOff[i + 1]; j++) {
+        const e = tEdge[j];
+        if (removed[e]) continue;
+        const y = verts[tAdj[j]];
+        const d = treeDist[x] + g.weight[e];
+        if (d > radius || (seed[y] && treeDist[y] <= d)) continue;
+        if (!seed[y]) {
+          seed[y] = 1;
+          seedList.push(y);
+        }
+        treeDist[y] = d;
+        stack.push(y);
+      }
+    }
+  }
+
   /** Removes `rem` edges and `inner` vertices, reconnects the pieces; returns the new tree if cheaper. */
-  private tryMove(tree: Int32Array, rem: number[], inner: number[], remCost: number, isTerminal: Uint8Array, g: Graph): Int32Array | null {
+  private tryMove(tree: Int32Array, rem: number[], inner: number[], remCost: number, isTerminal: Uint8Array, g: Graph, stop: () => boolean): Int32Array | null {
     if (remCost <= EPS) return null;
     const { label, dist, pred, heap, removed, verts, tOff, tAdj, tEdge } = this;
     for (const e of rem) removed[e] = 1;
@@ -407,16 +452,23 @@ export class LocalSearch {
       pieces++;
     }
     for (const x of inner) label[x] = -1;
+    this.markSeeds(rem, pieces === 2 ? Infinity : remCost, g);
     let result: Int32Array | null = null;
     if (pieces === 2) {
-      result = this.reconnectTwo(tree, remCost, isTerminal, g);
+      result = this.reconnectTwo(tree, remCost, isTerminal, g, stop);
     } else if (pieces > 2) {
-      for (let i = 0; i < this.touchedCount; i++) heap.push(this.touched[i], 0);
+      for (let i = 0; i < this.touchedCount; i++) if (this.seed[this.touched[i]]) heap.push(this.touched[i], 0);
       // bounded multi-source Dijkstra (Voronoi regions of the pieces). Searching to half the
       // removed cost keeps the regions local; boundary edges may still end at a tentative vertex.
       const { offsets, adj, adjEdge, weight } = g;
       const radius = remCost / 2;
+      let steps = 0;
+      let abandoned = false;
       while (heap.size > 0) {
+        if ((++steps & 1023) === 0 && stop()) {
+          abandoned = true;
+          break;
+        }
         const u = heap.pop();
         const du = dist[u];
         if (du >= radius) break;
@@ -436,7 +488,8 @@ export class LocalSearch {
       // boundary edges between pieces, cheapest first, Kruskal over pieces
       const cand: number[] = [];
       const candCost: number[] = [];
-      for (let i = 0; i < this.touchedCount; i++) {
+      const scan = abandoned ? 0 : this.touchedCount; // an abandoned move is not applied
+      for (let i = 0; i < scan; i++) {
         const u = this.touched[i];
         for (let j = offsets[u]; j < offsets[u + 1]; j++) {
           const v = adj[j];
@@ -481,6 +534,8 @@ export class LocalSearch {
       label[v] = -1;
     }
     for (const x of inner) label[x] = -1;
+    for (const x of this.seedList) this.seed[x] = 0;
+    this.seedList.length = 0;
     for (const e of rem) removed[e] = 0;
     heap.clear();
     return result;

@@ -5,6 +5,7 @@
 // new tree vertices at distance 0, and only the vertices that get closer are revisited.
 
 import type { Graph } from './graph';
+import { Cancelled } from '../result';
 import { IndexedHeap } from './heap';
 
 /** Buffers for repeated SPH runs on one graph. */
@@ -24,6 +25,7 @@ export class SphWorkspace {
 /**
  * Runs SPH from `root` (any vertex; usually a terminal). `isTerminal` marks terminals.
  * Returns the tree's edge ids, or null when some terminal is unreachable from the root.
+ * `aborted`, when given, is polled every 1024 steps; the run then throws Cancelled.
  */
 export function shortestPathHeuristic(
   g: Graph,
@@ -31,6 +33,7 @@ export function shortestPathHeuristic(
   isTerminal: Uint8Array,
   root: number,
   ws: SphWorkspace,
+  aborted?: () => boolean,
 ): Int32Array | null {
   const { dist, predEdge, inTree, heap } = ws;
   const { offsets, adj, adjEdge, weight, edgeU, edgeV } = g;
@@ -52,8 +55,10 @@ export function shortestPathHeuristic(
   inTree[root] = 1;
   dist[root] = 0;
   heap.push(root, 0);
+  let steps = 0;
   while (remaining > 0) {
     if (heap.size === 0) return null;
+    if (aborted && (++steps & 1023) === 0 && aborted()) throw new Cancelled();
     const u = heap.pop();
     const du = dist[u];
     if (isTerminal[u] && !inTree[u]) {

@@ -16,14 +16,15 @@ const DEFAULT_BUDGET_MS = 2000;
 const DEFAULT_MAX_ITERATIONS = 200;
 const FIRST_PLAIN_ROOTS = 4;
 const STALL_MIN = 8;
-/** Keep searching at least this long (ms) even after a stall: small instances iterate fast. */
-const MIN_SEARCH_MS = 150;
 const ELITE_SIZE = 8;
 const RECOMBINE_EVERY = 3;
 const RECOMBINE_ROOTS = 6;
 const PERTURB_MIN = 0.05;
 const PERTURB_MAX = 1.0;
 const LB_BUDGET_SHARE = 0.25;
+/** The exact solver may use this share of the budget; past it the heuristic takes over. */
+const EXACT_BUDGET_SHARE = 0.75;
+const HEURISTIC_MIN_SHARE = 0.25;
 const DEFAULT_EXACT_MAX_TERMINALS = 10;
 /** About 1 s of exact work on one core; beyond it the heuristic is the better use of time. */
 const EXACT_MAX_WORK = 1.2e8;
@@ -91,7 +92,8 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
   const t0 = now();
   const exactMax = opts.exactMaxTerminals ?? DEFAULT_EXACT_MAX_TERMINALS;
   if (terms.length <= exactMax && exactFits(g.n, terms.length, EXACT_DEFAULT_MAX_STATES) && exactWork(g.n, g.m, terms.length) <= EXACT_MAX_WORK) {
-    const ex = steinerExact(g, terms, { signal: opts.signal });
+    const exactDeadline = (opts.timeBudgetMs ?? DEFAULT_BUDGET_MS) * EXACT_BUDGET_SHARE;
+    const ex = steinerExact(g, terms, { signal: opts.signal, stop: () => now() - t0 > exactDeadline });
     if (ex) {
       opts.onProgress?.(1, ex.cost);
       return { edges: ex.edges, cost: ex.cost, lowerBound: ex.cost, gap: 0, optimal: true, iterations: 1 };
@@ -102,7 +104,8 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
   for (const t of terms) isTerminal[t] = 1;
   const budgetMs = opts.timeBudgetMs ?? DEFAULT_BUDGET_MS;
   const maxIter = opts.maxIterations ?? DEFAULT_MAX_ITERATIONS;
-  const stop = () => opts.signal?.aborted === true || now() - t0 > budgetMs;
+  let deadline = t0 + budgetMs; // moved later if the exact solver used most of the budget
+  const stop = () => opts.signal?.aborted === true || now() > deadline;
   const ws = new SphWorkspace(g.n);
   const scratch = new TreeScratch(g);
   const ls = new LocalSearch(g);
@@ -128,22 +131,29 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
     if (elite.length > ELITE_SIZE) elite.pop();
   };
   // a first tree right away, so that cancellation always has something to return
-  const first = shortestPathHeuristic(g, terms, isTerminal, terms[0], ws);
+  const first = shortestPathHeuristic(g, terms, isTerminal, terms[0], ws, () => opts.signal?.aborted === true);
   if (!first) throw new Error('solveSteiner: internal error, a connected terminal was not reached');
   consider(mstPrune(g, treeVertices(g, first, scratch), isTerminal, scratch));
   stall = 0;
   // lower bound next: a proven-optimal tree ends the search early
   let lowerBound = 0;
   if (opts.lowerBound !== false) {
-    const da = dualAscent(g, terms, terms[0], () => opts.signal?.aborted === true || now() - t0 > budgetMs * LB_BUDGET_SHARE);
+    const daStart = now();
+    const da = dualAscent(g, terms, terms[0], () => opts.signal?.aborted === true || now() - daStart > budgetMs * LB_BUDGET_SHARE);
     lowerBound = da.lowerBound;
+    // with integer weights every tree costs an integer, so the bound rounds up
+    let integral = true;
+    for (let e = 0; e < g.m && integral; e++) integral = Number.isInteger(g.weight[e]);
+    if (integral) lowerBound = Math.ceil(lowerBound - 1e-7 * Math.max(1, lowerBound));
   }
+  // the heuristic keeps a quarter of the budget even when the exact solver used most of it
+  deadline = Math.max(deadline, now() + budgetMs * HEURISTIC_MIN_SHARE);
   const pert = new Float64Array(g.m);
   const pg = withWeights(g, pert);
   const stallLimit = Math.max(STALL_MIN, Math.ceil(terms.length / 2));
   for (let it = 0; it < maxIter; it++) {
     if (!best && opts.signal?.aborted) throw new Cancelled();
-    if (best && (stop() || (stall >= stallLimit && now() - t0 >= MIN_SEARCH_MS) || bestCost <= lowerBound + 1e-9 * bestCost)) break;
+    if (best && (stop() || stall >= stallLimit || bestCost <= lowerBound + 1e-9 * bestCost)) break;
     let tree: Int32Array | null;
     if (it >= FIRST_PLAIN_ROOTS && elite.length >= 2 && it % RECOMBINE_EVERY === 0) {
       // recombine the best tree with one or two other elite trees
@@ -175,7 +185,7 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
     tree = ls.improve(tree, isTerminal, stop, g);
     iterations++;
     consider(tree);
-    opts.onProgress?.(Math.min(1, Math.max((now() - t0) / budgetMs, (it + 1) / maxIter, stall / stallLimit)), bestCost);
+    opts.onProgress?.(Math.min(1, Math.max((now() - t0) / (deadline - t0), (it + 1) / maxIter, stall / stallLimit)), bestCost);
   }
   if (!best) throw new Cancelled();
   const edges: Int32Array = best;
