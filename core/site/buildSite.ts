@@ -26,6 +26,8 @@ export interface BuildSiteOptions {
 export interface SiteError { kind: string; message: string }
 
 export const DEFAULT_MARGIN_M = 10;
+/** Findings of one kind listed one by one before they are summed up. */
+const MAX_LISTED = 10;
 export const DEFAULT_STITCH_M = 0.02;
 
 /** Plausible building footprints, m² (practice: a garden shed to a large distribution centre). */
@@ -121,14 +123,16 @@ export function buildSite(drawing: Drawing, opts: BuildSiteOptions = {}): Result
         '. Close the outlines (or raise the stitch tolerance), or give the footprint layer in roles.json',
     });
   }
-  for (const o of bg.open) {
+  for (const o of bg.open.slice(0, MAX_LISTED)) {
     warnings.push(`open outline on building layer ${bg.openLayers.get(o)} not used: gap of ${fmt(o.gap.length / frame.scale)} drawing units between ${where(o.gap.x0, o.gap.y0)} and ${where(o.gap.x1, o.gap.y1)}`);
   }
+  if (bg.open.length > MAX_LISTED) warnings.push(`… and ${bg.open.length - MAX_LISTED} more open outlines on building layers`);
   const buildings = assemblePolygons(bg.rings);
   plausibility(buildings, units, warnings);
 
   const kg = gather('keep-out');
-  for (const o of kg.open) warnings.push(`open outline on keep-out layer ${kg.openLayers.get(o)} ignored (gap at ${where(o.gap.x0, o.gap.y0)})`);
+  for (const o of kg.open.slice(0, MAX_LISTED)) warnings.push(`open outline on keep-out layer ${kg.openLayers.get(o)} ignored (gap at ${where(o.gap.x0, o.gap.y0)})`);
+  if (kg.open.length > MAX_LISTED) warnings.push(`… and ${kg.open.length - MAX_LISTED} more open outlines on keep-out layers`);
   const keepOuts = assemblePolygons(kg.rings);
 
   const pg = gather('pavement');
@@ -193,22 +197,25 @@ function resolveRoles(drawing: Drawing, given: Record<string, LayerRole> | undef
 }
 
 /** Drop degenerate and zero-area rings, repair self-intersecting ones; warnings say where. */
-function cleanRings(rings: LayeredRing[], minArea: number, role: LayerRole, warnings: string[], where: (x: number, y: number) => string): LayeredRing[] {
+function cleanRings(rings: LayeredRing[], minArea: number, role: LayerRole, allWarnings: string[], where: (x: number, y: number) => string): LayeredRing[] {
   const out: LayeredRing[] = [];
+  let repaired = 0, dropped = 0;
   for (const r of rings) {
     const hit = r.ring.length >= 8 ? selfIntersection(r.ring) : null;
     if (hit) {
       const parts = repairRing(r.ring, minArea);
-      warnings.push(`self-intersecting outline on ${role} layer ${r.layer} near ${where(hit.x, hit.y)} repaired into ${parts.length} simple ring(s)`);
+      if (repaired++ < MAX_LISTED) allWarnings.push(`self-intersecting outline on ${role} layer ${r.layer} near ${where(hit.x, hit.y)} repaired into ${parts.length} simple ring(s)`);
       for (const p of parts) out.push({ ring: p, layer: r.layer });
       continue;
     }
     if (r.ring.length < 6 || Math.abs(signedArea(r.ring)) <= minArea) {
-      warnings.push(`zero-area ring on ${role} layer ${r.layer} at ${where(r.ring[0], r.ring[1])} skipped`);
+      if (dropped++ < MAX_LISTED) allWarnings.push(`zero-area ring on ${role} layer ${r.layer} at ${where(r.ring[0], r.ring[1])} skipped`);
       continue;
     }
     out.push(r);
   }
+  if (repaired > MAX_LISTED) allWarnings.push(`… and ${repaired - MAX_LISTED} more self-intersecting outlines repaired on ${role} layers`);
+  if (dropped > MAX_LISTED) allWarnings.push(`… and ${dropped - MAX_LISTED} more zero-area rings skipped on ${role} layers`);
   return out;
 }
 

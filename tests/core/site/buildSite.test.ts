@@ -218,3 +218,18 @@ describe('buildSite: layer names', () => {
     }
   });
 });
+
+describe('buildSite: many findings', () => {
+  it('lists ten open outlines one by one and sums up the rest', () => {
+    const d = readFixture('rect_l_m_r2000.dxf');
+    const extra = Array.from({ length: 25 }, (_, i) => ({
+      kind: 'polyline' as const, layer: 'BLDG', source: 'LINE' as const, closed: false,
+      points: Float64Array.from([2000 + 10 * i, 2000, 2005 + 10 * i, 2000]),
+    }));
+    const r = buildSite({ ...d, entities: [...d.entities, ...extra] });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.value.warnings.filter((w) => w.startsWith('open outline'))).toHaveLength(10);
+    expect(r.value.warnings).toContain('… and 15 more open outlines on building layers');
+  });
+});
