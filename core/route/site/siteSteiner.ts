@@ -768,7 +768,8 @@ export class SiteSteiner {
       for (let round = 0; round < 4; round++) {
         const a = this.improve(opts.signal);
         this.prune();
-        const b = this.starExchange(opts.signal);
+        // Star exchanges (the costlier move) run on the first construction only.
+        const b = r === 0 ? this.starExchange(opts.signal) : 0;
         this.prune();
         if (a + b === 0 || opts.signal?.aborted || this.over()) break;
       }
