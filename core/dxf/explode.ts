@@ -3,9 +3,10 @@
 
 import type { DrawingEntity, SourceKind } from './drawing';
 import { type Affine, IDENTITY, applyInPlace, compose, insertTransform, isIdentity, maxStretch } from './affine';
-import { circleRing, ellipsePoints, interpolateFitPoints, pushArc, pushBulge, splinePoints } from './tessellate';
+import { ccwSweep, circleRing, ellipsePoints, interpolateFitPoints, pushArc, pushBulge, splinePoints } from './tessellate';
 import type { RawCircle, RawEllipse, RawPolyline } from './parserHandlers';
 import { plainText } from './plainText';
+import { LIMITS } from '../limits';
 
 export interface ExplodeLimits { maxEntities: number; maxBlockDepth: number; chordTolerance: number }
 
@@ -65,6 +66,10 @@ export class Exploder {
         this.skip(`${source} (coordinates not finite numbers)`);
         return;
       }
+      if (Math.abs(pts[i]) > LIMITS.maxCoordinate) {
+        this.skip(`${source} (coordinates beyond ±${LIMITS.maxCoordinate.toExponential()} drawing units)`);
+        return;
+      }
     }
     dedupe(pts, closed);
     if (pts.length < 4) {
@@ -99,8 +104,8 @@ export class Exploder {
       }
       case 'ARC': {
         if (!e.center || !(e.radius > 0)) return this.skip('ARC (incomplete)');
-        let sweep = (e.endAngle ?? TWO_PI) - (e.startAngle ?? 0);
-        while (sweep <= 0) sweep += TWO_PI;
+        const sweep = ccwSweep(e.startAngle ?? 0, e.endAngle ?? TWO_PI);
+        if (Number.isNaN(sweep)) return this.skip('ARC (angles not finite numbers)');
         const pts: number[] = [];
         pushArc(pts, e.center.x, e.center.y, e.radius, e.startAngle ?? 0, sweep, tol, true);
         const mm = (e.extrusionDirectionZ ?? 1) < 0 ? compose(m, [-1, 0, 0, 1, 0, 0]) : m;
@@ -130,6 +135,7 @@ export class Exploder {
         const pt = [p.x, p.y];
         applyInPlace(m, pt);
         if (!Number.isFinite(pt[0]) || !Number.isFinite(pt[1])) return this.skip(`${e.type} (coordinates not finite numbers)`);
+        if (Math.abs(pt[0]) > LIMITS.maxCoordinate || Math.abs(pt[1]) > LIMITS.maxCoordinate) return this.skip(`${e.type} (coordinates beyond ±${LIMITS.maxCoordinate.toExponential()} drawing units)`);
         const h = (e.type === 'TEXT' ? e.textHeight : e.height) ?? 1;
         const rot = (Math.atan2(m[1], m[0]) * 180) / Math.PI + (e.rotation ?? 0);
         const ent: DrawingEntity = {

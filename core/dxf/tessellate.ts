@@ -7,6 +7,17 @@
 const MAX_STEPS_PER_CURVE = 4096;
 const TWO_PI = Math.PI * 2;
 
+/**
+ * Sweep from angle a0 to a1 counter-clockwise, in (0, 2π] when a1 <= a0 (a larger positive
+ * difference is kept); NaN when either angle is not finite. Closed form, so a huge angle from a
+ * damaged file cannot stall the loop that added 2π until the sweep was positive.
+ */
+export function ccwSweep(a0: number, a1: number): number {
+  const s = a1 - a0;
+  if (!Number.isFinite(s)) return NaN;
+  return s > 0 ? s : (s % TWO_PI) + TWO_PI;
+}
+
 /** Number of equal steps for an arc of radius r and sweep |sweep| so the sagitta is <= tol. */
 export function arcSteps(radius: number, sweep: number, tol: number): number {
   const a = Math.abs(sweep);
@@ -78,8 +89,8 @@ export function ellipsePoints(
 ): { points: number[]; closed: boolean } {
   const a = Math.hypot(mx, my);
   const b = a * ratio;
-  let sweep = t1 - t0;
-  while (sweep <= 0) sweep += TWO_PI;
+  let sweep = ccwSweep(t0, t1);
+  if (Number.isNaN(sweep)) return { points: [], closed: false };
   const closed = Math.abs(sweep - TWO_PI) < 1e-9 || sweep > TWO_PI;
   if (closed) sweep = TWO_PI;
   // in the parameter t the chord error is a*dt^2/8 at worst (at the major-axis ends the curvature
