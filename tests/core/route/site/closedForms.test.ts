@@ -76,6 +76,16 @@ describe('obstacle-free closed forms', () => {
     expect(Math.hypot(junctions[0].x - s / 2, junctions[0].y - h / 3)).toBeLessThan(0.01 * s);
   });
 
+  it('a site in feet routes in feet: the 0.5 m cell becomes 0.5/0.3048 ft and the orthogonal square is 3·s (Hanan 1966)', () => {
+    const h = 0.5 / 0.3048; // the default cell in feet (1 ft = 0.3048 m exactly)
+    const s0 = 10 * h, f = 80 * h; // corners on lattice nodes (the lattice starts at the boundary corner)
+    const site = { ...makeSite({ boundary: rect(0, 0, 100 * h, 100 * h) }), units: 'ft' as const };
+    const pts = [connection('A', s0, s0), connection('B', s0 + f, s0), connection('C', s0 + f, s0 + f), connection('D', s0, s0 + f)];
+    const net = routeSite(site, pts, settings({ style: 'orthogonal' }));
+    expect(net.units).toBe('ft');
+    expect(total(net)).toBeCloseTo(3 * f, 6);
+  });
+
   it('octilinear square corners: the diagonal cross 2√2·s, every leg at a multiple of 45°', () => {
     // Octilinear length of a 45° leg from a corner to the centre: √2·s/2 (elementary geometry).
     const net = routeSite(open, square, settings({ style: 'octilinear' }));
