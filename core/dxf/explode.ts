@@ -76,7 +76,16 @@ export class Exploder {
       this.skip(`${source} (degenerate)`);
       return;
     }
-    if (!isIdentity(m)) applyInPlace(m, pts);
+    if (!isIdentity(m)) {
+      applyInPlace(m, pts);
+      // a block reference's scale or position (NaN, 1e308) can spoil points that were fine in the block
+      for (let i = 0; i < pts.length; i++) {
+        if (!(Math.abs(pts[i]) <= LIMITS.maxCoordinate)) {
+          this.skip(`${source} (block reference places it beyond ±${LIMITS.maxCoordinate.toExponential()} drawing units or at no number)`);
+          return;
+        }
+      }
+    }
     const ent: DrawingEntity = { kind: 'polyline', layer, source, points: Float64Array.from(pts), closed };
     if (handle !== undefined) ent.handle = handle;
     this.emit(ent);

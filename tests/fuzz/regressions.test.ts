@@ -22,6 +22,10 @@ const CASES: { file: string; warning: RegExp }[] = [
   { file: 'ellipse-start-param-1e308-hang.dxf', warning: /skipped 1 ELLIPSE/ },
   // CIRCLE radius 1e308: finite points, but the site boundary (extents ± margin, local frame) overflowed to Infinity
   { file: 'circle-radius-1e308-boundary-overflow.dxf', warning: /skipped 1 CIRCLE \(coordinates beyond ±1e\+12 drawing units\)/ },
+  // INSERT with x scale NaN: the block's LINE came out with NaN coordinates (the finite check ran before the transform)
+  { file: 'insert-scale-nan.dxf', warning: /skipped 1 LINE \(block reference places it beyond ±1e\+12 drawing units or at no number\)/ },
+  // INSERT at x 1e300 with scale 1e300: the block's LINE landed at ±Infinity
+  { file: 'insert-scale-1e300.dxf', warning: /skipped 1 LINE \(block reference places it beyond ±1e\+12 drawing units or at no number\)/ },
 ];
 
 describe('fuzz regressions', () => {
