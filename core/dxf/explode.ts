@@ -15,6 +15,8 @@ export type ExplodeFailure = { kind: 'limit'; message: string };
 interface Block { name: string; position?: { x: number; y: number }; entities?: any[] }
 
 const TWO_PI = Math.PI * 2;
+/** Highest SPLINE degree read (drawing programs write 1 to 3, some up to 11; common practice). */
+const MAX_SPLINE_DEGREE = 25;
 
 class LimitError extends Error {}
 
@@ -185,6 +187,8 @@ export class Exploder {
     const cps: { x: number; y: number }[] | undefined = e.controlPoints;
     const knots: number[] | undefined = e.knotValues;
     const p: number = e.degreeOfSplineCurve ?? 3;
+    // a degree from a damaged file (negative, fractional, huge) would size arrays with it
+    if (!Number.isInteger(p) || p < 1 || p > MAX_SPLINE_DEGREE) return this.skip(`SPLINE (degree not a whole number from 1 to ${MAX_SPLINE_DEGREE})`);
     let pts: number[];
     if (cps && knots && cps.length > p && knots.length === cps.length + p + 1) {
       const ctrl = new Float64Array(cps.length * 2);

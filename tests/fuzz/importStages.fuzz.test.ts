@@ -14,6 +14,12 @@ import { DEFAULT_MAX_BLOCK_DEPTH } from '../../core/dxf/readDxf';
 const SEEDS = [seedR2000(), seedR12()];
 const FUZZ_SEED = 20261202;
 const MUTATED_CASES = 10_000;
+/**
+ * Entity limit for the in-process run: an INSERT array count mutated to 1 000 000 is a valid
+ * drawing of a million entities (7 s to read); such expansions are bounded here by a lower limit
+ * and run at the default limits in bombs.test.ts, one per worker with its own time bound.
+ */
+const FUZZ_LIMITS = { maxEntities: 100_000 };
 /** Per case, in-process (a seed reads in ~1 ms; 1.5 s leaves room for a loaded 2-core CI box). */
 const CASE_BOUND_MS = 1500;
 
@@ -25,7 +31,7 @@ describe('import stages under fuzzing', () => {
     fc.assert(
       fc.property(fc.nat({ max: SEEDS.length - 1 }), fc.array(editArb, { minLength: 1, maxLength: 4 }), (which, edits) => {
         const text = applyEdits(SEEDS[which], edits);
-        const out = runStages(text);
+        const out = runStages(text, FUZZ_LIMITS);
         cases++;
         slowest = Math.max(slowest, out.ms);
         labels.set(out.label, (labels.get(out.label) ?? 0) + 1);
