@@ -765,13 +765,15 @@ export class SiteSteiner {
       const done = this.construct(order[r], members, opts, r === 0);
       if (!done) break;
       this.prune();
+      // Key-path exchange runs to a local optimum; star exchanges (the costlier move, first
+      // construction only) then try to leave it; both repeat only after a star gain.
       for (let round = 0; round < 4; round++) {
-        const a = this.improve(opts.signal);
+        this.improve(opts.signal);
         this.prune();
-        // Star exchanges (the costlier move) run on the first construction only.
-        const b = r === 0 ? this.starExchange(opts.signal) : 0;
+        if (r > 0 || opts.signal?.aborted || this.over()) break;
+        const b = this.starExchange(opts.signal);
         this.prune();
-        if (a + b === 0 || opts.signal?.aborted || this.over()) break;
+        if (b === 0 || opts.signal?.aborted || this.over()) break;
       }
       const c = this.treeCost();
       rounds++;
