@@ -180,7 +180,7 @@ export function splinePoints(p: number, knots: ArrayLike<number>, ctrl: ArrayLik
  */
 export function interpolateFitPoints(fit: ArrayLike<number>, degree = 3): { p: number; knots: Float64Array; ctrl: Float64Array } | null {
   const m = fit.length / 2; // number of points, n + 1
-  if (m < 2 || m > 400) return null;
+  if (m < 2 || m > 400 || !Number.isInteger(degree) || degree < 1) return null;
   const p = Math.min(degree, m - 1);
   const n = m - 1;
   const u = new Float64Array(m);

@@ -205,6 +205,14 @@ describe('readDxf: bad input gives an error value', () => {
     }
   });
 
+  it('skips a SPLINE of impossible degree', () => {
+    const ents = ['0', 'SPLINE', '8', 'A', '71', '-2147483648', '11', '0', '21', '0', '11', '5', '21', '5', '11', '9', '21', '1',
+      '0', 'LINE', '8', 'A', '10', '0', '20', '0', '11', '1', '21', '1'].join('\n');
+    const r = readDxf(minimal(ents));
+    expect(r.ok && r.value.entities.length).toBe(1);
+    expect(r.ok && r.value.warnings.join(' ')).toMatch(/degree outside 1 to 11/);
+  });
+
   it('skips an LWPOLYLINE without vertices instead of failing the file', () => {
     const ents = ['0', 'LWPOLYLINE', '8', 'BLDG', '90', '0', '70', '1', '0', 'LINE', '8', 'BLDG', '10', '0', '20', '0', '11', '1', '21', '1'].join('\n');
     const r = readDxf(minimal(ents));
