@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { routeSite } from '../../../../core/route/site/routeSite';
 import { loadDemo } from './demoSite';
 import { settings } from './siteFixtures';
+import { shapelyCheck } from './shapelyCheck';
 
 describe('demo site end to end', () => {
   const { site, terminals, problems } = loadDemo();
@@ -31,3 +32,19 @@ describe('demo site end to end', () => {
 
 // Pinned 2026-12-02 (octilinear, 0.5 m cells, 1 m clearance, defaults of core/settings.ts).
 const PINNED = { length: 696.74, bends: 8, crossings: 5, cost: 768.74 };
+
+describe('demo site clearances', () => {
+  const { site, terminals } = loadDemo();
+  for (const style of ['orthogonal', 'any-angle'] as const) {
+    it(`${style}: every trench segment keeps 1 m from buildings and keep-outs (shapely), one tree (networkx)`, () => {
+      const net = routeSite(site, terminals, settings({ style }));
+      const r = shapelyCheck(site, net, `demo-${style}`);
+      // Clipper approximates the clearance arcs within 0.005 m (arc tolerance): 0.01 m slack.
+      expect(r.minClearance as number).toBeGreaterThanOrEqual(1.0 - 0.01);
+      expect(r.segmentsOutsideBoundary).toBe(0);
+      expect(r.stubProblems).toEqual([]);
+      expect(r.isTree).toBe(true);
+      expect(r.terminalsInTree).toBe(13);
+    });
+  }
+});

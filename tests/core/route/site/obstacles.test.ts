@@ -1,32 +1,11 @@
 // Routing among buildings and keep-outs, checked by independent libraries: shapely 1.8 measures
 // each trench segment's distance to the buildings/keep-outs and checks stubs are perpendicular
 // to their wall; networkx 2.8 checks the segments form one tree holding every routed terminal.
-import { execFileSync } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { routeSite } from '../../../../core/route/site/routeSite';
 import { placeTerminals } from '../../../../core/site/placeTerminals';
-import type { Polygon, Site } from '../../../../core/site/site';
-import type { TrenchNetwork } from '../../../../core/network/trenchNetwork';
 import { obstaclePoints, obstacleSite, settings } from './siteFixtures';
-
-const here = (f: string): string => fileURLToPath(new URL(f, import.meta.url));
-const tmp = fileURLToPath(new URL('../../../.tmp/', import.meta.url));
-
-function shapelyCheck(site: Site, net: TrenchNetwork, name: string): Record<string, unknown> {
-  mkdirSync(tmp, { recursive: true });
-  const file = `${tmp}net-${name}.json`;
-  const poly = (p: Polygon): unknown => ({ outer: [...p.outer], holes: p.holes.map((h) => [...h]) });
-  writeFileSync(file, JSON.stringify({
-    obstacles: [...site.buildings, ...site.keepOuts].map(poly),
-    buildings: site.buildings.map(poly),
-    boundary: [...site.boundary],
-    segments: net.segments.map((s) => ({ id: s.id, from: s.from, to: s.to, points: [...s.points], stub: s.stub })),
-    nodes: net.nodes,
-  }));
-  return JSON.parse(execFileSync('/usr/bin/python3', [here('check_network.py'), file], { encoding: 'utf8' }));
-}
+import { shapelyCheck } from './shapelyCheck';
 
 describe('routing around buildings and keep-outs', () => {
   const site = obstacleSite();
