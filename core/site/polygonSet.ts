@@ -55,9 +55,18 @@ export function assemblePolygons(rings: LayeredRing[]): Polygon[] {
     while (parent[i] !== i) { parent[i] = parent[parent[i]]; i = parent[i]; }
     return i;
   };
+  // rings that may contain another (its box contains the other's box): checked exactly later
+  const containers = new Map<number, number[]>();
   overlappingPairs(boxes, (a, b) => {
     const ra = find(a), rb = find(b);
     if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
+    if (areas[a] !== areas[b]) {
+      const [big, small] = areas[a] > areas[b] ? [a, b] : [b, a];
+      if (boxContains(boxes[big], boxes[small])) {
+        const l = containers.get(small);
+        if (l) l.push(big); else containers.set(small, [big]);
+      }
+    }
   });
   const size = new Int32Array(n);
   for (let i = 0; i < n; i++) size[find(i)]++;
@@ -72,34 +81,31 @@ export function assemblePolygons(rings: LayeredRing[]): Polygon[] {
     const c = clusters.get(r);
     if (c) c.push(i); else clusters.set(r, [i]);
   }
-  for (const members of clusters.values()) out.push(...unionCluster(members, rings, boxes, areas));
+  for (const members of clusters.values()) out.push(...unionCluster(members, rings, boxes, areas, containers));
   return out;
 }
 
-function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], areas: Float64Array): Polygon[] {
-  // nesting depth: how many other rings of the cluster contain this one
-  const byArea = [...members].sort((a, b) => areas[b] - areas[a] || a - b);
+function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], areas: Float64Array, containers: Map<number, number[]>): Polygon[] {
   let ox = Infinity, oy = Infinity;
   for (const i of members) { ox = Math.min(ox, boxes[i].minX); oy = Math.min(oy, boxes[i].minY); }
-  const depth = new Map<number, number>();
+  // nesting depth (how many rings contain this one) and the outermost ring around it
   const layers = new Set<string>();
-  const paths: { X: number; Y: number }[][] = [];
-  for (let k = 0; k < byArea.length; k++) {
-    const i = byArea[k];
+  const groups = new Map<number, number[]>(); // outermost ring → the rings nested in it, itself included
+  const paths = new Map<number, Path>();
+  for (const i of members) {
     layers.add(rings[i].layer);
     let d = 0;
-    for (let q = 0; q < k; q++) {
-      const j = byArea[q];
-      if (areas[j] > areas[i] && boxContains(boxes[j], boxes[i]) && ringInside(rings[i].ring, rings[j].ring)) d++;
+    let top = i;
+    for (const j of containers.get(i) ?? []) {
+      if (!ringInside(rings[i].ring, rings[j].ring)) continue;
+      d++;
+      if (areas[j] > areas[top] || (areas[j] === areas[top] && j < top)) top = j;
     }
-    depth.set(i, d);
-    paths.push(toPath(d % 2 === 0 ? ccw(rings[i].ring) : cw(rings[i].ring), ox, oy));
+    paths.set(i, toPath(d % 2 === 0 ? ccw(rings[i].ring) : cw(rings[i].ring), ox, oy));
+    const g = groups.get(top);
+    if (g) g.push(i); else groups.set(top, [i]);
   }
-  const c = new ClipperLib.Clipper();
-  c.AddPaths(paths, ClipperLib.PolyType.ptSubject, true);
-  // flat paths output (about 3× faster than clipper's PolyTree here); holes are assigned below
-  const solution: { X: number; Y: number }[][] = [];
-  c.Execute(ClipperLib.ClipType.ctUnion, solution, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
+  const solution = unionGroups([...groups.values()], paths, boxes);
   const layer = [...layers].sort().join(', ');
   const outers: { ring: Ring; area: number; box: Box; holes: Ring[] }[] = [];
   const holes: Ring[] = [];
@@ -119,6 +125,40 @@ function unionCluster(members: number[], rings: LayeredRing[], boxes: Box[], are
   }
   // largest first, as clipper's tree would list them
   return outers.reverse().map((o) => ({ outer: o.ring, holes: o.holes, layer }));
+}
+
+type Path = { X: number; Y: number }[];
+
+const UNION_LEAF = 64;
+
+/**
+ * Union of groups of rings (a group: an outermost ring and the rings nested in it, so holes stay
+ * with their outer ring). Large sets are split in two along their wider axis and the halves' unions
+ * unioned again: clipper's cost grows faster than linearly with many shared edges (townhouses,
+ * parcels), the split keeps each call small. Output: flat paths, outers positive, holes negative.
+ */
+function unionGroups(groups: number[][], paths: Map<number, Path>, boxes: Box[]): Path[] {
+  const count = groups.reduce((n, g) => n + g.length, 0);
+  const run = (subject: Path[]): Path[] => {
+    const c = new ClipperLib.Clipper();
+    c.AddPaths(subject, ClipperLib.PolyType.ptSubject, true);
+    const solution: Path[] = []; // flat paths: about 3× faster than clipper's PolyTree here
+    c.Execute(ClipperLib.ClipType.ctUnion, solution, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
+    return solution;
+  };
+  if (count <= UNION_LEAF || groups.length < 2) return run(groups.flat().map((i) => paths.get(i)!));
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  const cx = groups.map((g) => { const b = boxes[g[0]]; return (b.minX + b.maxX) / 2; });
+  const cy = groups.map((g) => { const b = boxes[g[0]]; return (b.minY + b.maxY) / 2; });
+  for (let k = 0; k < groups.length; k++) {
+    minX = Math.min(minX, cx[k]); maxX = Math.max(maxX, cx[k]); minY = Math.min(minY, cy[k]); maxY = Math.max(maxY, cy[k]);
+  }
+  const key = maxX - minX >= maxY - minY ? cx : cy;
+  const order = groups.map((_, k) => k).sort((a, b) => key[a] - key[b] || a - b);
+  const half = order.length >> 1;
+  const left = unionGroups(order.slice(0, half).map((k) => groups[k]), paths, boxes);
+  const right = unionGroups(order.slice(half).map((k) => groups[k]), paths, boxes);
+  return run([...left, ...right]);
 }
 
 /** A point just inside a simple ring: the midpoint of its first edge, moved a hair to the inner side. */

@@ -17,6 +17,11 @@ const KEYWORDS: readonly { role: LayerRole; words: readonly string[] }[] = [
   { role: 'crossing', words: ['CURB', 'KERB', 'GUTTER', 'FENCE', 'WALL', 'GUARDRAIL', 'RAIL', 'RAILWAY', 'TRACK', 'DITCH', 'SWALE', 'CHANNEL', 'CREEK', 'EX', 'EXIST', 'EXST', 'EXISTING', 'UTIL', 'UTILITY', 'UTILITIES', 'WATER', 'WTR', 'WM', 'SEWER', 'SAN', 'SANITARY', 'SS', 'STORM', 'STM', 'SD', 'GAS', 'ELEC', 'ELECTRIC', 'POWER', 'PWR', 'TEL', 'TELE', 'PHONE', 'COMM', 'FIBER', 'FIBRE', 'FO', 'CATV', 'CABLE', 'IRRIG', 'IRRIGATION', 'PIPE', 'MAIN', 'CULVERT', 'DUCT', 'CONDUIT'] },
 ];
 
+/** Words that decide only when no other word does (PARKING-LOT is pavement; LOT-LINES are lot lines). */
+const WEAK: readonly { role: LayerRole; words: readonly string[]; what: string }[] = [
+  { role: 'ignore', words: ['LOT', 'LOTS'], what: 'lot lines' },
+];
+
 /** Words of a layer name: xref prefix dropped, split on separators and letter/digit changes. */
 export function layerWords(name: string): string[] {
   const base = name.includes('|') ? name.slice(name.lastIndexOf('|') + 1) : name;
@@ -47,18 +52,39 @@ export function suggestRoles(drawing: Drawing): RoleSuggestion[] {
   // metres per drawing unit; unitless drawings are judged as metres and as feet, either passing
   const mpu = metresPerInsUnit(drawing.header.insUnits);
   const scales = mpu === null ? [1, 0.3048] : [mpu];
-  const stats = new Map<string, { closed: number; buildingSize: number; open: number; text: number; areas: number[] }>();
-  for (const l of drawing.layers) stats.set(l.name, { closed: 0, buildingSize: 0, open: 0, text: 0, areas: [] });
+  type Stats = { closed: number; buildingSize: number; open: number; text: number; circles: number; areas: number[]; corners: Map<string, number>; shapes: Float64Array[] };
+  const blank = (): Stats => ({ closed: 0, buildingSize: 0, open: 0, text: 0, circles: 0, areas: [], corners: new Map(), shapes: [] });
+  const stats = new Map<string, Stats>();
+  for (const l of drawing.layers) stats.set(l.name, blank());
+  // geometry is looked at only on layers whose name says nothing
+  const named = new Map<string, boolean>();
+  const isNamed = (layer: string): boolean => {
+    let v = named.get(layer);
+    if (v === undefined) {
+      const words = layerWords(layer);
+      v = KEYWORDS.some((k) => matchWord(words, k.words) !== null) || WEAK.some((k) => matchWord(words, k.words) !== null);
+      named.set(layer, v);
+    }
+    return v;
+  };
   for (const e of drawing.entities) {
     let s = stats.get(e.layer);
-    if (!s) { s = { closed: 0, buildingSize: 0, open: 0, text: 0, areas: [] }; stats.set(e.layer, s); }
+    if (!s) { s = blank(); stats.set(e.layer, s); }
     if (e.kind === 'text') { s.text++; continue; }
+    if (isNamed(e.layer)) { if (e.closed) s.closed++; else s.open++; continue; }
     if (!e.closed) { s.open++; continue; }
     s.closed++;
+    // circles are symbols (trees, manholes) far more often than footprints
+    if (e.source === 'CIRCLE') { s.circles++; continue; }
     const a = Math.abs(signedArea(e.points));
     if (scales.some((k) => a * k * k >= MIN_BUILDING_M2 && a * k * k <= MAX_BUILDING_M2)) {
       s.buildingSize++;
       s.areas.push(a * scales[0] * scales[0]);
+      s.shapes.push(e.points);
+      for (let i = 0; i < e.points.length; i += 2) {
+        const key = `${e.points[i]},${e.points[i + 1]}`;
+        s.corners.set(key, (s.corners.get(key) ?? 0) + 1);
+      }
     }
   }
   const out: RoleSuggestion[] = [];
@@ -82,10 +108,20 @@ export function suggestRoles(drawing: Drawing): RoleSuggestion[] {
         }
       }
     }
+    for (const { role, words: kw, what } of WEAK) {
+      if (done) break;
+      const hit = matchWord(words, kw);
+      if (hit) {
+        out.push({ layer, role, reason: `layer name contains '${hit}' (${what})` });
+        done = true;
+      }
+    }
     if (done) continue;
     const total = s.closed + s.open + s.text;
     if (total === 0) {
       out.push({ layer, role: 'ignore', reason: 'layer is empty' });
+    } else if (s.buildingSize > 0 && s.buildingSize >= 0.5 * (s.closed + s.open) && tiles(s.shapes, s.corners)) {
+      out.push({ layer, role: 'ignore', reason: `${s.buildingSize} closed shapes that share corners like parcels or lots, not footprints` });
     } else if (s.buildingSize > 0 && s.buildingSize >= 0.5 * (s.closed + s.open)) {
       const med = s.areas.sort((a, b) => a - b)[Math.floor(s.areas.length / 2)];
       const unit = mpu === null ? 'drawing units² (unitless drawing)' : 'm²';
@@ -97,4 +133,16 @@ export function suggestRoles(drawing: Drawing): RoleSuggestion[] {
     }
   }
   return out;
+}
+
+/** Most shapes share a corner with another shape: a parcel or lot pattern rather than buildings. */
+function tiles(shapes: Float64Array[], corners: Map<string, number>): boolean {
+  if (shapes.length < 4) return false;
+  let sharing = 0;
+  for (const p of shapes) {
+    for (let i = 0; i < p.length; i += 2) {
+      if ((corners.get(`${p[i]},${p[i + 1]}`) ?? 0) > 1) { sharing++; break; }
+    }
+  }
+  return sharing > 0.5 * shapes.length;
 }
