@@ -19,6 +19,8 @@ export interface LimitTable {
   maxRouteBytes: number;
   /** Largest |coordinate| kept, drawing units: beyond it sums and squares of coordinates overflow or lose all precision. */
   maxCoordinate: number;
+  /** Most vertices of a self-intersecting outline the site stage repairs (more are skipped with a warning). */
+  maxRepairVertices: number;
 }
 
 const MB = 1024 * 1024;
@@ -33,6 +35,8 @@ export const LIMITS: Readonly<LimitTable> = Object.freeze({
   maxRouteBytes: 2048 * MB,
   // state-plane feet and UTM metres are below 1e8, millimetre drawings below 1e11; squares stay far from overflow
   maxCoordinate: 1e12,
+  // measured: a 5 000-vertex zig-zag footprint repairs in 1.9 s, 20 000 in 7 s, 40 000 in 32 s
+  maxRepairVertices: 10_000,
 });
 
 const fmtMB = (bytes: number): string => (bytes >= 1024 * MB ? `${(bytes / (1024 * MB)).toFixed(1)} GB` : `${(bytes / MB).toFixed(bytes >= 10 * MB ? 0 : 1)} MB`);

@@ -6,9 +6,9 @@ import { type Affine, IDENTITY, applyInPlace, compose, insertTransform, isIdenti
 import { ccwSweep, circleRing, ellipsePoints, interpolateFitPoints, pushArc, pushBulge, splinePoints } from './tessellate';
 import type { RawCircle, RawEllipse, RawPolyline } from './parserHandlers';
 import { plainText } from './plainText';
-import { LIMITS } from '../limits';
+import { LIMITS, vertexLimitMessage } from '../limits';
 
-export interface ExplodeLimits { maxEntities: number; maxBlockDepth: number; chordTolerance: number }
+export interface ExplodeLimits { maxEntities: number; maxBlockDepth: number; chordTolerance: number; maxVertices?: number }
 
 export type ExplodeFailure = { kind: 'limit'; message: string };
 
@@ -25,6 +25,7 @@ export class Exploder {
   readonly skipped = new Map<string, number>();
   readonly notes: string[] = [];
   private readonly stack: string[] = [];
+  private vertices = 0;
 
   constructor(private readonly blocks: Record<string, Block>, private readonly limits: ExplodeLimits) {}
 
@@ -52,6 +53,11 @@ export class Exploder {
         `the drawing expands to more than ${this.limits.maxEntities} entities (block references included); ` +
           'purge unused detail or raise the entity limit',
       );
+    }
+    if (e.kind === 'polyline') {
+      this.vertices += e.points.length / 2;
+      const max = this.limits.maxVertices ?? LIMITS.maxVertices;
+      if (this.vertices > max) throw new LimitError(vertexLimitMessage(max));
     }
     this.out.push(e);
   }

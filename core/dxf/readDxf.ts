@@ -19,6 +19,8 @@ export interface ReadDxfOptions {
   maxEntities?: number;
   /** Refuse block references nested deeper than this (default 16). */
   maxBlockDepth?: number;
+  /** Refuse drawings that expand to more polyline vertices than this, curves tessellated (default LIMITS.maxVertices, core/limits.ts). */
+  maxVertices?: number;
 }
 
 export const DEFAULT_MAX_BYTES = 200 * 1024 * 1024;
@@ -120,6 +122,7 @@ export function readDxf(text: string, opts: ReadDxfOptions = {}): Result<Drawing
     chordTolerance,
     maxEntities,
     maxBlockDepth: opts.maxBlockDepth ?? DEFAULT_MAX_BLOCK_DEPTH,
+    maxVertices: opts.maxVertices,
   });
   const failure = ex.run(dxf.entities);
   if (failure) return err(failure);

@@ -13,6 +13,7 @@ import { stitchRings, type OpenChain } from './stitchRings';
 import { assemblePolygons, polygonArea, repairRing, type LayeredRing } from './polygonSet';
 import { selfIntersection, signedArea } from './rings';
 import { suggestRoles } from './suggestRoles';
+import { LIMITS } from '../limits';
 
 export interface BuildSiteOptions {
   roles?: Record<string, LayerRole>;
@@ -202,6 +203,11 @@ function cleanRings(rings: LayeredRing[], minArea: number, role: LayerRole, allW
   let repaired = 0, dropped = 0;
   for (const r of rings) {
     const hit = r.ring.length >= 8 ? selfIntersection(r.ring) : null;
+    if (hit && r.ring.length / 2 > LIMITS.maxRepairVertices) {
+      // the repair (a polygon union) grows with the square of the crossings: a 40 000-vertex zig-zag took 30 s
+      allWarnings.push(`self-intersecting outline of ${r.ring.length / 2} vertices on ${role} layer ${r.layer} near ${where(hit.x, hit.y)} skipped: over ${LIMITS.maxRepairVertices} vertices is too many to repair; fix the outline in the drawing`);
+      continue;
+    }
     if (hit) {
       const parts = repairRing(r.ring, minArea);
       if (repaired++ < MAX_LISTED) allWarnings.push(`self-intersecting outline on ${role} layer ${r.layer} near ${where(hit.x, hit.y)} repaired into ${parts.length} simple ring(s)`);
