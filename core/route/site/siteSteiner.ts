@@ -588,7 +588,16 @@ export class SiteSteiner {
       for (let d = 0; d < 8; d++) if ((this.adj[x] >> d) & 1) dirs.push(d);
       const groups: number[][] = [];
       if (!this.isAnchorNode(x) && deg >= 3 && deg <= 4) groups.push(dirs);
-      if (this.isAnchorNode(x)) for (let i = 0; i < dirs.length; i++) for (let j = i + 1; j < dirs.length; j++) groups.push([dirs[i], dirs[j]]);
+      // Pairs at a terminal, when its two branches leave less than 120° apart (a heuristic filter:
+      // for straight branches at 120° or more the terminal itself is the Fermat point).
+      if (this.isAnchorNode(x)) {
+        for (let i = 0; i < dirs.length; i++) {
+          for (let j = i + 1; j < dirs.length; j++) {
+            const k = Math.abs(dirs[i] - dirs[j]) % 8;
+            if (Math.min(k, 8 - k) * 45 < 120) groups.push([dirs[i], dirs[j]]);
+          }
+        }
+      }
       for (const grp of groups) {
         if (signal?.aborted || this.over()) return gains;
         if (grp.some((d) => !((this.adj[x] >> d) & 1))) continue;
