@@ -1,6 +1,10 @@
-// Steiner tree in graphs: the engine's entry point. Builds trees with the shortest-path
-// heuristic (sph.ts), cleans them with MST + leaf pruning (tree.ts) and reports cost,
-// a lower bound and the gap.
+// Steiner tree in graphs: the engine's entry point.
+//  - few terminals: the exact Dreyfus–Wagner program (exact.ts) when its table and work are small;
+//  - otherwise an anytime search: shortest-path heuristic trees (Takahashi–Matsuyama, sph.ts)
+//    from a few roots and then on randomly perturbed weights, each improved by the local search
+//    of Uchoa & Werneck (2010) plus Steiner-vertex insertion/elimination (localSearch.ts), with
+//    recombination of elite trees (recombine.ts), until the budget, a stall or a proven optimum;
+//  - a lower bound by Wong's dual ascent (dualAscent.ts), reported with the gap.
 
 import { Cancelled } from '../result';
 import { componentOf, edgeCost, withWeights, type Graph } from './graph';
@@ -14,6 +18,7 @@ import { mstPrune, TreeScratch, treeVertices } from './tree';
 
 const DEFAULT_BUDGET_MS = 2000;
 const DEFAULT_MAX_ITERATIONS = 200;
+const DEFAULT_GAP_TOLERANCE = 0;
 const FIRST_PLAIN_ROOTS = 4;
 const STALL_MIN = 8;
 const ELITE_SIZE = 8;
@@ -31,8 +36,14 @@ const EXACT_MAX_WORK = 1.2e8;
 const now = () => performance.now();
 
 export interface SteinerOptions {
+  /** Seed of the perturbations (default 1). */
   seed?: number;
+  /**
+   * Wall-clock budget in ms (default 2000). The exact solver may use up to 75 % of it; the
+   * heuristic always keeps at least 25 % after the bound, so a run ends within 1.25x the budget.
+   */
   timeBudgetMs?: number;
+  /** Most heuristic iterations (default 200); a stall of max(8, terminals/2) iterations also ends it. */
   maxIterations?: number;
   onProgress?: (fraction: number, bestCost: number) => void;
   signal?: { readonly aborted: boolean };
@@ -43,6 +54,11 @@ export interface SteinerOptions {
   exactMaxTerminals?: number;
   /** Compute a lower bound (default true). */
   lowerBound?: boolean;
+  /**
+   * Stop once (cost - lowerBound) / cost <= this. Default 0: search on until the tree is proven
+   * optimal or the budget, the iteration limit or a stall ends it.
+   */
+  gapTolerance?: number;
 }
 
 export interface SteinerResult {
@@ -76,8 +92,7 @@ export function normalizeTerminals(g: Graph, terminals: ArrayLike<number>): numb
  * Throws an Error naming the terminals that are not connected to the first one (use
  * splitReachableTerminals in graph.ts to drop them first). On cancellation (signal.aborted)
  * returns the best tree found so far, or throws Cancelled (core/result.ts) when no tree exists
- * yet (aborted during the exact solver, the lower bound or before the first shortest-path
- * tree is done). Deterministic for a
+ * yet (aborted before or during the exact solver or the first shortest-path tree). Deterministic for a
  * given seed and budget as long as the time budget is not what ends the search (set
  * maxIterations and a generous timeBudgetMs for byte-identical runs across machines).
  */
@@ -151,9 +166,10 @@ export function solveSteiner(g: Graph, terminals: ArrayLike<number>, opts: Stein
   const pert = new Float64Array(g.m);
   const pg = withWeights(g, pert);
   const stallLimit = Math.max(STALL_MIN, Math.ceil(terms.length / 2));
+  const gapTol = Math.max(opts.gapTolerance ?? DEFAULT_GAP_TOLERANCE, 1e-9);
   for (let it = 0; it < maxIter; it++) {
     if (!best && opts.signal?.aborted) throw new Cancelled();
-    if (best && (stop() || stall >= stallLimit || bestCost <= lowerBound + 1e-9 * bestCost)) break;
+    if (best && (stop() || stall >= stallLimit || bestCost - lowerBound <= gapTol * bestCost)) break;
     let tree: Int32Array | null;
     if (it >= FIRST_PLAIN_ROOTS && elite.length >= 2 && it % RECOMBINE_EVERY === 0) {
       // recombine the best tree with one or two other elite trees

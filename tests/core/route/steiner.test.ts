@@ -129,3 +129,15 @@ describe('solveSteiner', () => {
     expect(Array.from(r.edges).sort()).toEqual([1, 2]);
   });
 });
+
+describe('solveSteiner gapTolerance', () => {
+  it('stops as soon as the proven gap is within the tolerance', () => {
+    const { g, free } = gridWithHoles(21, 40, 40, 6, 9);
+    const terms = pickTerminals(6, free, 30);
+    const loose = solveSteiner(g, terms, { gapTolerance: 0.5, maxIterations: 50, timeBudgetMs: 60_000 });
+    expect(loose.gap).toBeLessThanOrEqual(0.5);
+    expect(loose.iterations).toBe(0); // the first shortest-path tree is already within 50 % of the dual-ascent bound
+    const tight = solveSteiner(g, terms, { gapTolerance: 0, maxIterations: 50, timeBudgetMs: 60_000 });
+    expect(tight.cost).toBeLessThanOrEqual(loose.cost);
+  });
+});
