@@ -13,11 +13,18 @@
 //
 // Construction: the shortest-path heuristic of Takahashi & Matsuyama (1980) on the expanded
 // graph — grow from a root, each round adding the cheapest state path from the tree to a
-// terminal not yet joined (Dijkstra from all hubs of the tree at once).
+// terminal not yet joined. While many terminals are left, the next one is taken in Prim order
+// over the terminals' Voronoi MST (Mehlhorn 1988, see lowerBound.ts) so that A* (Hart, Nilsson
+// & Raphael 1968; estimate = octilinear or rectilinear distance at the cheapest surface) has
+// one goal; with few left, all are goals and the nearest is joined. Tree nodes are released to
+// the search by coarse cells, cheapest bound first, so a round does not touch the whole tree.
 // Local search: key-path exchange (as in Uchoa & Werneck 2010, "Fast local search for Steiner
 // trees in graphs"): remove a path between key nodes (terminals, junctions) and reconnect the
-// two parts by the cheapest state path when that is cheaper.
+// two parts by the cheapest state path near the old one when that is cheaper; star exchange
+// (key-vertex elimination and its two-branch variant): remove the key paths at a node and
+// reconnect the parts through the hub node with the least summed distance.
 // Perturbation: restarts from other roots (seeded order); the cheapest tree wins.
+// Effort: the time budget is converted into a number of settled states (deterministic).
 
 import { Cancelled, type Progress } from '../../result';
 import type { Anchor } from './attach';
