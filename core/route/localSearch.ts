@@ -24,6 +24,7 @@ export class LocalSearch {
   private readonly seed: Uint8Array; // tree vertices a reconnection may start from
   private readonly seedList: number[] = [];
   private readonly treeDist: Float64Array;
+  private readonly stack: Int32Array;
   private readonly scratch: TreeScratch;
   // tree index (rebuilt after each accepted move)
   private verts: number[] = [];
@@ -41,6 +42,7 @@ export class LocalSearch {
     this.removed = new Uint8Array(g.m);
     this.seed = new Uint8Array(g.n);
     this.treeDist = new Float64Array(g.n);
+    this.stack = new Int32Array(g.n);
     this.scratch = new TreeScratch(g);
   }
 
@@ -390,17 +392,19 @@ export class LocalSearch {
    */
   private markSeeds(rem: number[], radius: number, g: Graph): void {
     const { label, seed, seedList, treeDist, localId, tOff, tAdj, tEdge, verts, removed } = this;
-    const stack: number[] = [];
+    const stack = this.stack;
+    let top = 0;
     for (const e of rem)
-      for (const x of [g.edgeU[e], g.edgeV[e]]) {
+      for (let end = 0; end < 2; end++) {
+        const x = end === 0 ? g.edgeU[e] : g.edgeV[e];
         if (label[x] < 0 || seed[x]) continue;
         seed[x] = 1;
         seedList.push(x);
         treeDist[x] = 0;
-        stack.push(x);
+        stack[top++] = x;
       }
-    while (stack.length > 0) {
-      const x = stack.pop()!;
+    while (top > 0) {
+      const x = stack[--top];
       const i = localId[x];
       for (let j = tOff[i]; j < tOff[i + 1]; j++) {
         const e = tEdge[j];
@@ -413,7 +417,7 @@ export class LocalSearch {
           seedList.push(y);
         }
         treeDist[y] = d;
-        stack.push(y);
+        stack[top++] = y;
       }
     }
   }
@@ -426,16 +430,17 @@ export class LocalSearch {
     for (const x of inner) label[x] = -2; // freed
     // label the pieces by flood fill over the remaining tree
     let pieces = 0;
-    const stack: number[] = [];
+    const stack = this.stack;
+    let top = 0;
     this.touchedCount = 0;
     heap.clear();
     for (let i = 0; i < verts.length; i++) {
       const v0 = verts[i];
       if (label[v0] !== -1) continue;
       label[v0] = pieces;
-      stack.push(i);
-      while (stack.length) {
-        const a = stack.pop()!;
+      stack[top++] = i;
+      while (top > 0) {
+        const a = stack[--top];
         const va = verts[a];
         dist[va] = 0;
         pred[va] = -1;
@@ -445,7 +450,7 @@ export class LocalSearch {
           const b = tAdj[j];
           if (label[verts[b]] === -1) {
             label[verts[b]] = pieces;
-            stack.push(b);
+            stack[top++] = b;
           }
         }
       }
