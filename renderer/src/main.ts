@@ -168,7 +168,11 @@ async function boot(): Promise<void> {
     if (s.selectedPoint !== prev.selectedPoint) pointsOverlay.setPoints(store.get().points, s.selectedPoint);
     if (s.tool !== prev.tool) pointsOverlay.setCue(null);
     messageEl.textContent = s.message?.text ?? '';
-    if (s.step !== prev.step) renderRail();
+    if (s.step !== prev.step) {
+      renderRail();
+      // the take-off table needs a wider sheet; the canvas follows through its resize observer
+      byId('app').classList.toggle('wide-sheet', s.step === 'takeoff');
+    }
     view.requestRender();
     renderSheet();
   });
