@@ -63,9 +63,11 @@ export function vertexLimitMessage(maxVertices: number): string {
  *  mark, adj (1 each), star-exchange buffers (4 × (Float64 + Int32) = 48), lower bound (Float64 + Int32 = 12),
  *  component labels (Int32 = 4), best-tree copy (1). */
 export const ROUTE_BYTES_PER_NODE = 5 + 4 + 32 + 2 + 48 + 12 + 4 + 1;
-/** Per state: dist (Float64), pred and stamp (Int32 each), and the bucket queue's entries
- *  (Int32 + Float64 + Int32 + Float64 = 24 bytes; pools double, and about one entry per state is live at the peak). */
-export const ROUTE_BYTES_PER_STATE = 8 + 4 + 4 + 24;
+/** Per state: dist (Float64), pred and stamp (Int32 each) = 16, and the bucket queue's entries: 24 bytes
+ *  each (Int32 + Float64 + Int32 + Float64), about 1.5 per state at the pool's largest (measured on
+ *  generated sites), and the pool doubles by copying, so the old pool is live while the new one fills:
+ *  1.5 × 24 × 2 = 72. */
+export const ROUTE_BYTES_PER_STATE = 16 + 72;
 export const ROUTE_STATES_PER_NODE = 8;
 
 export interface RouteMemoryEstimate {
