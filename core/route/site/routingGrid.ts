@@ -201,7 +201,9 @@ export function buildRoutingGrid(site: Site, params: GridParams, timings?: Recor
       if (!((bits >> d) & 1)) continue;
       const u = v + DX[d] + DY[d] * nx;
       const len = STEP[d] * h;
-      const paved = paveNear[v] || paveNear[u]
+      // Measured exactly when the ends disagree, or on a diagonal near an edge (it may clip a
+      // corner); otherwise both ends agree and nothing lies between them at grid resolution.
+      const paved = pave[v] !== pave[u] || ((d & 1) === 1 && (paveNear[v] || paveNear[u]))
         ? pavedMove(pavement, pave[v], pave[u], vx, vy, vx + DX[d] * h, vy + DY[d] * h)
         : pave[v] ? len : 0;
       const c = d < 4 ? cross[v * 4 + d] : cross[u * 4 + d - 4];
