@@ -193,7 +193,6 @@ export class Exploder {
     const cps: { x: number; y: number }[] | undefined = e.controlPoints;
     const knots: number[] | undefined = e.knotValues;
     const p: number = e.degreeOfSplineCurve ?? 3;
-    if (!Number.isInteger(p) || p < 1 || p > 11) return this.skip('SPLINE (degree outside 1 to 11)');
     // a degree from a damaged file (negative, fractional, huge) would size arrays with it
     if (!Number.isInteger(p) || p < 1 || p > MAX_SPLINE_DEGREE) return this.skip(`SPLINE (degree not a whole number from 1 to ${MAX_SPLINE_DEGREE})`);
     let pts: number[];
