@@ -32,6 +32,8 @@ export interface Diff {
     readonly added: readonly PointInput[];
     readonly removed: readonly PointInput[];
     readonly updated: readonly { before: PointInput; after: PointInput }[];
+    /** Point ids in list order before and after, when the edit adds or removes points. */
+    readonly order?: { before: readonly string[]; after: readonly string[] };
   };
   readonly route: readonly { key: keyof RouteSettings; before: unknown; after: unknown }[];
   readonly utilitiesOn: { before: readonly string[]; after: readonly string[] } | null;
@@ -57,7 +59,8 @@ export function diffFor(state: ProjectState, edit: Edit): Diff {
     }
     case 'add-point': {
       if (state.points.some((p) => p.id === edit.point.id)) throw new Error(`point id ${edit.point.id} already used`);
-      return { ...emptyDiff(`Add ${edit.point.role} ${edit.point.id}`), points: { added: [freezePoint(edit.point)], removed: [], updated: [] } };
+      const ids = state.points.map((p) => p.id);
+      return { ...emptyDiff(`Add ${edit.point.role} ${edit.point.id}`), points: { added: [freezePoint(edit.point)], removed: [], updated: [], order: { before: ids, after: [...ids, edit.point.id] } } };
     }
     case 'update-point': {
       const before = state.points.find((p) => p.id === edit.id);
@@ -69,12 +72,13 @@ export function diffFor(state: ProjectState, edit: Edit): Diff {
     case 'remove-point': {
       const before = state.points.find((p) => p.id === edit.id);
       if (!before) throw new Error(`no point ${edit.id}`);
-      return { ...emptyDiff(`Delete ${before.id}`), points: { added: [], removed: [before], updated: [] } };
+      const ids = state.points.map((p) => p.id);
+      return { ...emptyDiff(`Delete ${before.id}`), points: { added: [], removed: [before], updated: [], order: { before: ids, after: ids.filter((i) => i !== before.id) } } };
     }
     case 'replace-points':
       return {
         ...emptyDiff(`Import ${edit.points.length} points`),
-        points: { added: edit.points.map(freezePoint), removed: [...state.points], updated: [] },
+        points: { added: edit.points.map(freezePoint), removed: [...state.points], updated: [], order: { before: state.points.map((p) => p.id), after: edit.points.map((p) => p.id) } },
       };
     case 'set-route': {
       const before = state.route[edit.key];
@@ -107,10 +111,16 @@ export function applyDiff(state: ProjectState, d: Diff): ProjectState {
   if (d.points.added.length || d.points.removed.length || d.points.updated.length) {
     const removed = new Set(d.points.removed.map((p) => p.id));
     const updated = new Map(d.points.updated.map((u) => [u.after.id, u.after]));
-    points = Object.freeze([
+    const next = [
       ...state.points.filter((p) => !removed.has(p.id)).map((p) => updated.get(p.id) ?? p),
       ...d.points.added,
-    ]);
+    ];
+    const order = d.points.order?.after;
+    if (order) {
+      const rank = new Map(order.map((id, i) => [id, i]));
+      next.sort((a, b) => (rank.get(a.id) ?? 1e9) - (rank.get(b.id) ?? 1e9));
+    }
+    points = Object.freeze(next);
   }
   let route = state.route;
   if (d.route.length) {
@@ -131,6 +141,7 @@ export function invertDiff(d: Diff): Diff {
       added: d.points.removed,
       removed: d.points.added,
       updated: d.points.updated.map((u) => ({ before: u.after, after: u.before })),
+      order: d.points.order ? { before: d.points.order.after, after: d.points.order.before } : undefined,
     },
     route: d.route.map((r) => ({ key: r.key, before: r.after, after: r.before })),
     utilitiesOn: d.utilitiesOn ? { before: d.utilitiesOn.after, after: d.utilitiesOn.before } : null,
