@@ -47,7 +47,8 @@ async function makeApp(host: HTMLElement, transparent: boolean): Promise<Applica
   const app = new Application();
   await app.init({
     preference: 'webgl',
-    background: CANVAS_BACKGROUND,
+    // a transparent canvas must clear to (0,0,0,0): the page composites it premultiplied
+    background: transparent ? 0x000000 : CANVAS_BACKGROUND,
     backgroundAlpha: transparent ? 0 : 1,
     antialias: transparent, // smooth point symbols; the drawing's 1-pixel lines need none
     autoStart: false,
