@@ -26,6 +26,8 @@ export class Exploder {
   readonly notes: string[] = [];
   private readonly stack: string[] = [];
   private vertices = 0;
+  /** Copies of the block being expanded made by the enclosing INSERT arrays. */
+  private copies = 1;
 
   constructor(private readonly blocks: Record<string, Block>, private readonly limits: ExplodeLimits) {}
 
@@ -238,7 +240,14 @@ export class Exploder {
     if (cols * rows > this.limits.maxEntities) {
       throw new LimitError(`an INSERT array of ${cols} × ${rows} exceeds the entity limit of ${this.limits.maxEntities}`);
     }
+    // arrays inside arrays multiply: refuse before expanding rather than after millions of entities
+    const copies = this.copies * cols * rows;
+    if (copies > this.limits.maxEntities) {
+      throw new LimitError(`block '${name}' would be drawn ${copies.toExponential(1)} times (INSERT arrays nested in arrays: ${[...this.stack, name].join(' → ')}), over the entity limit of ${this.limits.maxEntities}`);
+    }
     const mirror = (e.extrusionDirection?.z ?? 1) < 0;
+    const outerCopies = this.copies;
+    this.copies = copies;
     this.stack.push(name);
     for (let r = 0; r < rows; r++) {
       for (let c = 0; c < cols; c++) {
@@ -254,6 +263,7 @@ export class Exploder {
       }
     }
     this.stack.pop();
+    this.copies = outerCopies;
   }
 }
 
