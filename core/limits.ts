@@ -1,6 +1,9 @@
 // Limits on what Furrow will take on, in one table with their defaults, and the messages that
-// explain a refusal: the figure, the limit, and what to change. Readers and the router take their
-// defaults from here; a limit is reached as an error value, never as an out-of-memory crash.
+// explain a refusal: the figure, the limit, and what to change. The DXF reader (readDxf.ts,
+// explode.ts) and the site stage take their defaults from here; the router's grid size is checked
+// by checkRouteSize before the grid is built. A limit is reached as an error value, never as an
+// out-of-memory crash. (The file-size, entity and block-depth messages are built in readDxf.ts
+// and explode.ts, beside the checks.)
 
 import type { RouteSettings } from './settings';
 import type { Site } from './site/site';
@@ -41,12 +44,6 @@ export const LIMITS: Readonly<LimitTable> = Object.freeze({
 
 const fmtMB = (bytes: number): string => (bytes >= 1024 * MB ? `${(bytes / (1024 * MB)).toFixed(1)} GB` : `${(bytes / MB).toFixed(bytes >= 10 * MB ? 0 : 1)} MB`);
 const fmtInt = (n: number): string => Math.round(n).toLocaleString('en-US');
-
-/** Message for a file over the size limit. */
-export function fileSizeMessage(sizeBytes: number, maxBytes: number): string {
-  const mb = (n: number): string => (n / MB).toFixed(1);
-  return `the file is ${mb(sizeBytes)} MB, over the ${mb(maxBytes)} MB limit; purge unused layers and blocks, or raise the size limit`;
-}
 
 /** Message for a drawing that expands to too many polyline vertices. */
 export function vertexLimitMessage(maxVertices: number): string {

@@ -8,6 +8,7 @@ import { err, ok, type Result } from '../result';
 import { metresPerInsUnit, M_PER_FT } from '../units';
 import { CircleHandler, EllipseHandler, LwPolylineHandler, PolylineHandler } from './parserHandlers';
 import { Exploder } from './explode';
+import { LIMITS } from '../limits';
 import { findTablesSection, readLayerTable, type LayerRecord } from './layerTable';
 
 export interface ReadDxfOptions {
@@ -23,9 +24,10 @@ export interface ReadDxfOptions {
   maxVertices?: number;
 }
 
-export const DEFAULT_MAX_BYTES = 200 * 1024 * 1024;
-export const DEFAULT_MAX_ENTITIES = 2_000_000;
-export const DEFAULT_MAX_BLOCK_DEPTH = 16;
+// the defaults live in the one table of limits (core/limits.ts)
+export const DEFAULT_MAX_BYTES = LIMITS.maxFileBytes;
+export const DEFAULT_MAX_ENTITIES = LIMITS.maxEntities;
+export const DEFAULT_MAX_BLOCK_DEPTH = LIMITS.maxBlockDepth;
 
 const BINARY_SENTINEL = 'AutoCAD Binary DXF';
 const IMPERIAL_CODES = new Set([1, 2, 3, 10, 21]);
