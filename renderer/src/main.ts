@@ -121,7 +121,7 @@ async function boot(): Promise<void> {
     clear(rail);
     STEPS.forEach((s, i) => rail.append(h('button', {
       className: ui.get().step === s.step ? 'active' : '', 'data-step': s.step,
-      onclick: () => ui.set({ step: s.step }),
+      onclick: () => ui.set({ step: s.step, message: null }),
     }, h('span', { className: 'step-no' }, String(i + 1)), s.label)));
   };
 

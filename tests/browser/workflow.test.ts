@@ -136,8 +136,8 @@ describe('working through the demo site in the browser', () => {
     // a click far from any wall adds nothing and says why
     const far = await toPage(512125, 4180000.5 - 30);
     await page.mouse.click(far.x, far.y);
-    expect((await points()).length).toBe(after.length);
     await expect.poll(() => page.locator('#ui-message').textContent()).toMatch(/No building wall/);
+    expect((await points()).length).toBe(after.length);
     await page.click('[data-tool="select"]');
   });
 
