@@ -279,6 +279,18 @@ describe('working through the demo site in the browser', () => {
     expect(await page.evaluate(() => window.furrowDebug!.runs)).toBe(0);
   });
 
+  it('explains an unreadable drawing and keeps the open one (never a blank screen)', async () => {
+    const bad = path.join(ARTIFACTS, 'not-a-drawing.dxf');
+    fs.writeFileSync(bad, 'this is not DXF <script>alert(1)</script>\n');
+    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.click('#open-drawing')]);
+    await chooser.setFiles(bad);
+    await expect.poll(() => page.locator('#ui-message').textContent()).toMatch(/^Could not read not-a-drawing\.dxf: /);
+    expect(await page.locator('#ui-message script').count()).toBe(0);
+    expect(await page.locator('#doc-name').textContent()).toMatch(/^site\.dxf \(demo\)/);
+    const png = await page.locator('canvas.site-canvas').screenshot();
+    expect(countColour(png, [0xe3, 0xd5, 0xb8], 12)).toBeGreaterThan(100); // buildings still drawn (theme sandstone)
+  });
+
   it('logged no page errors', () => {
     expect(errors).toEqual([]);
   });
