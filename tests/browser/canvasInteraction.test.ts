@@ -1,8 +1,10 @@
 // Canvas interaction in headless Chromium: wheel zoom about the cursor, drag to pan, fit, the scale
 // bar, cursor coordinates in drawing units, moving and deleting a point, and hover labels.
+import fs from 'node:fs';
+import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { collectErrors, ensureRendererBuilt, launchBrowser, saveArtifact, serveDir, DIST, type Browser, type StaticServer } from './harness';
+import { collectErrors, ensureRendererBuilt, launchBrowser, saveArtifact, serveDir, ARTIFACTS, DIST, type Browser, type StaticServer } from './harness';
 
 let server: StaticServer;
 let browser: Browser;
@@ -129,6 +131,25 @@ describe('canvas navigation and editing', () => {
     const tip = page.locator('#hover-tip');
     expect(await tip.textContent()).toMatch(/^Service S1/);
     expect(await tip.evaluate((el) => el.children.length)).toBe(0); // text only, no markup
+  });
+
+  it('imports points from a services CSV (undoable) and reports a bad one by line', async () => {
+    fs.mkdirSync(ARTIFACTS, { recursive: true });
+    const good = path.join(ARTIFACTS, 'two-points.csv');
+    fs.writeFileSync(good, 'id,x,y,role,utilities\nP1,512125,4180000.5,connection,power\nB7,512045,4180085,service,power\n');
+    await page.click('[data-step="points"]');
+    const before = await page.locator('#points-table tbody tr').count();
+    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.click('#import-points')]);
+    await chooser.setFiles(good);
+    await expect.poll(() => page.locator('#points-table tbody tr').evaluateAll((r) => r.map((x) => x.getAttribute('data-point')))).toEqual(['P1', 'B7']);
+    await page.click('#undo');
+    await expect.poll(() => page.locator('#points-table tbody tr').count()).toBe(before);
+    const bad = path.join(ARTIFACTS, 'bad-points.csv');
+    fs.writeFileSync(bad, 'id,x,y,role,utilities\nP1,512125,4180000.5,connection,power\nB7,east,4180085,service,power\n');
+    const [chooser2] = await Promise.all([page.waitForEvent('filechooser'), page.click('#import-points')]);
+    await chooser2.setFiles(bad);
+    await expect.poll(() => page.locator('#ui-message').textContent()).toMatch(/line 3/);
+    expect(await page.locator('#points-table tbody tr').count()).toBe(before);
   });
 
   it('logged no page errors', () => {
