@@ -8,6 +8,10 @@ import { describe, expect, it } from 'vitest';
 import { checkRouteSize, estimateRouteMemory, LIMITS } from '../../core/limits';
 import { defaultSettings } from '../../core/settings';
 import { gridSite } from './gridSite';
+import { readFileSync } from 'node:fs';
+import { readDxfBytes } from '../../core/dxf/readDxf';
+import { buildSite } from '../../core/site/buildSite';
+import { parseRolesFile } from '../../core/site/rolesFile';
 import type { Site } from '../../core/site/site';
 
 const child = fileURLToPath(new URL('./routeAllocChild.ts', import.meta.url));
@@ -75,6 +79,22 @@ describe('route memory estimate', () => {
   it('a site too large for any offered cell asks for a smaller boundary', () => {
     const r = checkRouteSize(rect(400_000, 400_000), defaultSettings().route);
     expect(r?.message).toMatch(/draw a smaller site boundary .* no cell size up to 10 m fits this area/);
+  });
+
+  it('the demo site (300 m × 200 m with its margin) fits at 0.5 m and is refused at 0.1 m with 0.2 m suggested', () => {
+    const demo = (f: string): string => fileURLToPath(new URL(`../../assets/demo/${f}`, import.meta.url));
+    const d = readDxfBytes(readFileSync(demo('site.dxf')));
+    if (!d.ok) throw new Error(d.error.message);
+    const roles = parseRolesFile(readFileSync(demo('roles.json'), 'utf8'), 'roles.json', d.value.layers.map((l) => l.name));
+    if (!roles.ok) throw new Error(roles.error.message);
+    const s = buildSite(d.value, { roles: roles.value.roles });
+    if (!s.ok) throw new Error(s.error.message);
+    const route = defaultSettings().route;
+    const e = estimateRouteMemory(s.value, route);
+    console.log(JSON.stringify({ demoCellM: route.cellM, cells: e.cells, estimateMB: Math.round(e.bytes / 1048576) }));
+    expect(checkRouteSize(s.value, route)).toBeNull();
+    const fine = checkRouteSize(s.value, { ...route, cellM: 0.1 });
+    expect(fine?.message).toMatch(/with 0\.1 m cells makes a grid of 3,002 × 2,002 = 6,010,004 cells .* route\.cellM 0\.2 m would need about/);
   });
 
   it('a lower memory limit is honoured', () => {
