@@ -12,8 +12,36 @@ const run = (cmd, args) => {
   const r = spawnSync(cmd, args, { cwd: repo, stdio: 'inherit', shell: process.platform === 'win32' });
   if (r.status !== 0) process.exit(r.status ?? 1);
 };
-if (!fs.existsSync(path.join(repo, 'renderer', 'dist', 'index.html'))) run('npx', ['vite', 'build', '--config', 'renderer/vite.config.ts']);
-if (!fs.existsSync(path.join(repo, 'electron', 'dist', 'main.cjs'))) run(process.execPath, [path.join(repo, 'electron', 'bundle.mjs')]);
+// Rebuild when a source file is newer than the built output (so a pulled change is never run stale).
+const newest = (dir) => {
+  let t = 0;
+  for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
+    if (e.name === 'dist' || e.name === 'node_modules') continue;
+    const p = path.join(dir, e.name);
+    t = Math.max(t, e.isDirectory() ? newest(p) : fs.statSync(p).mtimeMs);
+  }
+  return t;
+};
+const builtAt = (file) => (fs.existsSync(file) ? fs.statSync(file).mtimeMs : -1);
+const sources = Math.max(newest(path.join(repo, 'core')), newest(path.join(repo, 'renderer')));
+if (builtAt(path.join(repo, 'renderer', 'dist', 'index.html')) < sources) run('npx', ['vite', 'build', '--config', 'renderer/vite.config.ts']);
+if (builtAt(path.join(repo, 'electron', 'dist', 'main.cjs')) < Math.max(sources, newest(path.join(repo, 'electron')))) run(process.execPath, [path.join(repo, 'electron', 'bundle.mjs')]);
+
+// Electron 45 fetches its runtime on first use rather than at npm install: do that once here.
+const electronDir = path.dirname(require.resolve('electron/package.json'));
+const binaryReady = () => {
+  try {
+    const p = require('electron');
+    return typeof p === 'string' && fs.existsSync(p);
+  } catch {
+    return false;
+  }
+};
+if (!binaryReady()) {
+  console.error('Fetching the Electron runtime (first start only)...');
+  spawnSync(process.execPath, [path.join(electronDir, 'install.js')], { cwd: electronDir, stdio: 'inherit' });
+  for (const k of Object.keys(require.cache)) if (k.startsWith(electronDir)) delete require.cache[k];
+}
 
 let electronBinary;
 try {
