@@ -13,6 +13,7 @@ import type { TrenchNetwork } from './network/trenchNetwork';
 import { NOTICE_LINES, NOTICE_TITLE } from './notice';
 import { Cancelled, err, ok, type Progress, type Result } from './result';
 import { routeSite } from './route/site/routeSite';
+import { checkRouteSize } from './limits';
 import type { DxfLayerNames, Settings } from './settings';
 import { defaultSettings } from './settings';
 import { parseSettingsFile } from './settingsFile';
@@ -166,6 +167,8 @@ export async function runPipeline(input: PipelineInput, opts: PipelineOptions = 
 
   begin('route');
   let routeDone = 0;
+  const tooBig = checkRouteSize(site, settings.route);
+  if (tooBig) return fail('route', input.settings?.name ?? input.drawing.name, `${input.drawing.name}: ${tooBig.message}`);
   const net = routeSite(site, terminals, settings.route, {
     onProgress: (sub, f) => {
       // the router's own steps, mapped onto one rising fraction of the route stage

@@ -120,7 +120,7 @@ function applyFields(path: string, src: unknown, fields: Record<string, Field>, 
   if (!isObj(src)) { issues.push({ key: path, message: 'must be an object { ... }' }); return; }
   for (const [k, v] of Object.entries(src)) {
     const key = `${path}.${k}`;
-    const f = fields[k];
+    const f = Object.prototype.hasOwnProperty.call(fields, k) ? fields[k] : undefined;
     if (!f) { issues.push({ key, message: `unknown key; known keys: ${Object.keys(fields).join(', ')}` }); continue; }
     if (checkField(key, v, f, issues)) dst[k] = v;
   }
@@ -130,7 +130,7 @@ function parseUtility(path: string, src: unknown, defaults: readonly UtilitySett
   if (!isObj(src)) { issues.push({ key: path, message: 'must be an object with at least a "key"' }); return null; }
   const base = defaults.find((d) => d.key === src.key);
   const out: Record<string, unknown> = base ? { ...base, coverIn: { ...base.coverIn }, ...(base.cable ? { cable: { ...base.cable } } : {}) } : {};
-  const plain: Record<string, unknown> = {};
+  const plain: Record<string, unknown> = Object.create(null); // '__proto__' stays a key, refused below
   for (const [k, v] of Object.entries(src)) if (k !== 'coverIn' && k !== 'cable') plain[k] = v;
   applyFields(path, plain, UTILITY_FIELDS, out, issues);
   if ('coverIn' in src) {
