@@ -1,6 +1,6 @@
 // Routes the shared trench on a site: routing grid → terminals joined by stubs → Steiner tree
-// on the bend-priced grid (siteSteiner.ts) → lower bound (lowerBound.ts) → shaped network
-// (network/shape.ts). Terminals that cannot be joined are reported one by one; the rest are
+// on the bend-priced grid (siteSteiner.ts) → lower bound (the larger of lowerBound.ts and
+// dualAscentGrid.ts) → shaped network (network/shape.ts). Terminals that cannot be joined are reported one by one; the rest are
 // routed. Deterministic for the same input while the time budget is not reached.
 
 import type { Progress } from '../../result';
@@ -12,8 +12,15 @@ import { fromMetres } from '../../units';
 import { graphFromTree, shapeGraph, toNetwork } from '../../network/shape';
 import { attachTerminal, type Anchor } from './attach';
 import { voronoiBound } from './lowerBound';
+import { gridDualAscent } from './dualAscentGrid';
 import { buildRoutingGrid, DX, DY, styleMask, type GridParams, type RoutingGrid } from './routingGrid';
 import { SiteSteiner, type SiteTree } from './siteSteiner';
+
+/** Dual ascent's work budget (nodes taken in, arcs pushed or popped): about 20 M per second. */
+const DA_WORK_PER_NODE = 60;
+const DA_MAX_WORK = 40_000_000;
+/** Above this many terminals the per-terminal bit sets would outweigh the grid: Voronoi bound only. */
+const DA_MAX_TERMINALS = 128;
 
 export interface RouteOptions {
   onProgress?: Progress;
@@ -127,6 +134,15 @@ export function routeSiteDetailed(site: Site, terminals: Terminal[], route: Rout
   });
   lap('solve');
   check();
+  // The stronger bound, when it fits the budget: dual ascent on the plain grid costs (it needs a
+  // membership bit per node per terminal, so very many terminals keep the Voronoi bound alone).
+  let lowerBound = bound.lowerBound;
+  if (anchors.length > 1 && anchors.length <= DA_MAX_TERMINALS) {
+    const da = gridDualAscent(g, anchors.map((a) => a.node), anchors[0].node, Math.min(DA_MAX_WORK, DA_WORK_PER_NODE * g.n), solver.stateBuffer());
+    if (da.lowerBound > lowerBound) lowerBound = da.lowerBound;
+  }
+  lap('bound.dualAscent');
+  check();
 
   const sg = graphFromTree(g, tree.adj, tree.nodes, anchors, terminals);
   shapeGraph(sg, g, route.style);
@@ -137,7 +153,6 @@ export function routeSiteDetailed(site: Site, terminals: Terminal[], route: Rout
   timings.total = performance.now() - t0;
 
   const cost = tree.cost;
-  const lowerBound = bound.lowerBound;
   if (lowerBound > cost * (1 + 1e-9) + 1e-9) throw new Error(`routeSite: lower bound ${lowerBound} exceeds the route cost ${cost}`);
   const network: TrenchNetwork = {
     units: site.units,

@@ -751,6 +751,11 @@ export class SiteSteiner {
     if (missing.length) throw new Error(`siteSteiner: internal error, tree misses anchors ${missing.join(', ')}`);
   }
 
+  /** The search's per-state buffer (g.n·8 entries), free for other use once solve() has returned; overwritten by the next solve. */
+  stateBuffer(): Float64Array {
+    return this.dist;
+  }
+
   /** Past the work budget (deterministic: no clock is read). */
   private over(): boolean {
     return this.work > this.workLimit;

@@ -50,6 +50,9 @@ describe('obstacle-free closed forms', () => {
   it('orthogonal square corners: exactly 3·s (Hanan 1966)', () => {
     const net = routeSite(open, square, settings({ style: 'orthogonal' }));
     expect(total(net)).toBeCloseTo(3 * s, 6);
+    // The reported lower bound never exceeds the closed-form optimum, and is close to it.
+    expect(net.quality.lowerBound).toBeLessThanOrEqual(3 * s * (1 + 1e-12));
+    expect(net.quality.lowerBound).toBeGreaterThanOrEqual(0.9 * 3 * s);
     for (const seg of net.segments) {
       const p = seg.points;
       for (let i = 0; i + 3 < p.length; i += 2) expect(p[i] === p[i + 2] || p[i + 1] === p[i + 3]).toBe(true);
@@ -62,6 +65,8 @@ describe('obstacle-free closed forms', () => {
     // Bounding box 30 × 40 → half perimeter 70.
     const net = routeSite(site, pts, settings({ style: 'orthogonal' }));
     expect(total(net)).toBeCloseTo(70, 6);
+    expect(net.quality.lowerBound).toBeLessThanOrEqual(70 * (1 + 1e-12));
+    expect(net.quality.lowerBound).toBeGreaterThanOrEqual(0.9 * 70);
   });
 
   it('any-angle equilateral triangle of side s: √3·s within 0.5 % (Gilbert & Pollak 1968)', () => {
