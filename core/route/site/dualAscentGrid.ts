@@ -127,6 +127,8 @@ export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[],
   const cut = new Int32Array(k);
   const status = new Uint8Array(k); // 0 active, 1 finished (holds the root), 2 stopped (holds another active terminal)
   const stack: number[] = [];
+  const added: number[] = [];
+  const fresh = new Uint32Array(words); // members taken in by the current absorb
   const absorbed: number[] = [];
   let work = 0;
   let lb = 0;
@@ -135,6 +137,8 @@ export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[],
    * Takes x and everything reaching it over zero reduced cost into component i; true when the
    * root was taken in. While an arc is in the grown component's cut its rc entry holds its key
    * (reduced cost + total raise); it goes back to a plain reduced cost when it leaves the cut.
+   * First the new members are found, then their arcs are sorted into the cut, so arcs between
+   * new members never enter the heap.
    */
   const absorb = (i: number, x0: number): boolean => {
     const bits = member[i]!, heap = heaps[i]!;
@@ -142,11 +146,14 @@ export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[],
     let c = cut[i];
     let hitRoot = false;
     stack.length = 0;
+    added.length = 0;
     stack.push(x0);
     while (stack.length > 0) {
       const x = stack.pop()!;
       if ((bits[x >>> 5] >>> (x & 31)) & 1) continue;
       bits[x >>> 5] |= 1 << (x & 31);
+      fresh[x >>> 5] |= 1 << (x & 31);
+      added.push(x);
       work++;
       if (x === root) hitRoot = true;
       const ti = termOf.get(x);
@@ -156,7 +163,17 @@ export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[],
         if (!((mv >> e) & 1)) continue;
         const y = x + off[e];
         work++;
+        if (!((bits[y >>> 5] >>> (y & 31)) & 1) && rc[y * 8 + ((e + 4) & 7)] <= eps) stack.push(y);
+      }
+    }
+    for (const x of added) {
+      const mv = moves[x] & mask;
+      for (let e = 0; e < 8; e++) {
+        if (!((mv >> e) & 1)) continue;
+        const y = x + off[e];
+        work++;
         if ((bits[y >>> 5] >>> (y & 31)) & 1) {
+          if ((fresh[y >>> 5] >>> (y & 31)) & 1) continue; // both new: the arcs were never in the cut
           // The arc x→y leaves the cut: back to its reduced cost.
           c--;
           const r = rc[x * 8 + e] - base;
@@ -166,10 +183,26 @@ export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[],
         c++;
         const a = y * 8 + ((e + 4) & 7); // arc y→x enters the cut
         const r = rc[a];
-        if (r <= eps) { rc[a] = base; stack.push(y); } else { rc[a] = r + base; heap.push(r + base, a); }
+        rc[a] = r + base;
+        heap.push(r + base, a);
       }
     }
+    for (const x of added) fresh[x >>> 5] = 0;
     cut[i] = c;
+    // Arcs whose tail joined through another arc stay in the heap until popped: drop them when
+    // they outnumber the cut, so the heap stays within a few times the cut (memory and speed).
+    if (heap.size > 2 * c + 64) {
+      let w = 0;
+      for (let j = 0; j < heap.size; j++) {
+        const a = heap.arcs[j], y = a >>> 3;
+        if ((bits[y >>> 5] >>> (y & 31)) & 1) continue;
+        heap.arcs[w] = a;
+        heap.keys[w++] = heap.keys[j];
+      }
+      work += heap.size;
+      heap.size = w;
+      heap.heapify();
+    }
     return hitRoot;
   };
 
