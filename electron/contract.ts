@@ -29,7 +29,12 @@ export interface OpenedFile {
   text: string;
 }
 
-export interface SavedFile { path: string; name: string }
+export interface SavedFile {
+  path: string;
+  name: string;
+  /** When an existing file was replaced: where its earlier content was copied first. */
+  backupPath?: string | null;
+}
 
 export type BridgeErrorKind = 'invalid-argument' | 'io' | 'too-large' | 'not-found' | 'wrong-type';
 export interface BridgeError { kind: BridgeErrorKind; message: string }
@@ -50,6 +55,9 @@ export interface WriteRequest {
   data: string | Uint8Array;
 }
 
+/** The autosaved project found in the recovery slot, with the time it was written (ISO 8601). */
+export interface RecoverySnapshot { savedAt: string; project: string }
+
 /** What the renderer can call. Every function maps to exactly one channel below. */
 export interface FurrowBridge {
   readonly version: number;
@@ -68,6 +76,17 @@ export interface FurrowBridge {
   onRecentChosen(listener: (path: string) => void): () => void;
   /** Tells main the document title and whether it has unsaved edits. */
   setDocumentState(title: string, edited: boolean): void;
+  /** Writes the current project (serialized) to the recovery slot under the app's data folder. */
+  writeRecovery(projectText: string, savedAtIso: string): Promise<BridgeResult<null>>;
+  /** The recovery slot's content, or null when it is empty (a clean last exit). */
+  readRecovery(): Promise<BridgeResult<RecoverySnapshot | null>>;
+  /** Empties the recovery slot (after a clean save, a clean quit, or Discard). */
+  clearRecovery(): Promise<BridgeResult<null>>;
+  /**
+   * Main asks before the window closes: the listener writes or clears the recovery slot and resolves;
+   * main closes the window once it has (or after a short timeout). Returns an unsubscribe function.
+   */
+  onBeforeClose(listener: () => Promise<void>): () => void;
 }
 
 export const CHANNELS = {
@@ -79,7 +98,12 @@ export const CHANNELS = {
   menuCommand: 'furrow:menu-command',
   recentChosen: 'furrow:recent-chosen',
   setDocumentState: 'furrow:set-document-state',
-} as const satisfies Record<keyof Omit<FurrowBridge, 'version' | 'onMenuCommand' | 'onRecentChosen'> | 'menuCommand' | 'recentChosen', string>;
+  writeRecovery: 'furrow:write-recovery',
+  readRecovery: 'furrow:read-recovery',
+  clearRecovery: 'furrow:clear-recovery',
+  beforeClose: 'furrow:before-close',
+  closeReady: 'furrow:close-ready',
+} as const satisfies Record<keyof Omit<FurrowBridge, 'version' | 'onMenuCommand' | 'onRecentChosen' | 'onBeforeClose'> | 'menuCommand' | 'recentChosen' | 'beforeClose' | 'closeReady', string>;
 
 // ---- validators (run in main on every incoming argument) ----
 
@@ -114,6 +138,16 @@ export function validateDocumentState(title: unknown, edited: unknown): BridgeRe
   if (typeof title !== 'string' || title.length > 512) return bad('title must be a string of at most 512 characters');
   if (typeof edited !== 'boolean') return bad('edited must be a boolean');
   return ok({ title, edited });
+}
+
+/** Largest recovery snapshot accepted (a project embeds its drawing). */
+export const MAX_RECOVERY_CHARS = MAX_WRITE_BYTES;
+
+export function validateRecovery(projectText: unknown, savedAtIso: unknown): BridgeResult<RecoverySnapshot> {
+  if (typeof projectText !== 'string' || projectText.length === 0) return bad('recovery project must be non-empty text');
+  if (projectText.length > MAX_RECOVERY_CHARS) return err({ kind: 'too-large', message: `refusing a recovery snapshot of ${projectText.length} characters` });
+  if (typeof savedAtIso !== 'string' || savedAtIso.length > 40 || Number.isNaN(Date.parse(savedAtIso))) return bad('savedAt must be an ISO date-time');
+  return ok({ project: projectText, savedAt: savedAtIso });
 }
 
 export function isMenuCommand(v: unknown): v is MenuCommand {

@@ -7,12 +7,14 @@ import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { err, ok } from '../core/result';
 import {
-  CHANNELS, FILE_KINDS, validateDocumentState, validateOpenKind, validatePath, validateWriteRequest,
-  type BridgeResult, type FileKind, type MenuCommand, type OpenedFile, type SavedFile,
+  CHANNELS, FILE_KINDS, validateDocumentState, validateOpenKind, validatePath, validateRecovery, validateWriteRequest,
+  type BridgeResult, type FileKind, type MenuCommand, type OpenedFile, type RecoverySnapshot, type SavedFile,
 } from './contract';
 import { dialogFilters, readTextFile, writeFileAtomic } from './handlers/fileAccess';
 import { buildMenuSpec, type MenuItemSpec } from './handlers/menu';
 import { createRecentFiles } from './handlers/recentFiles';
+import { createRecoverySlot } from './handlers/recovery';
+import { writeKeepingBackup } from './handlers/writeBack';
 import { APP_ORIGIN, APP_SCHEME, CONTENT_SECURITY_POLICY, isAllowedNavigation, resolveAppUrl, secureWebPreferences } from './handlers/security';
 import { pickInitialFile } from './handlers/startup';
 
@@ -26,6 +28,11 @@ const initialPath = pickInitialFile(process.argv.slice(app.isPackaged ? 1 : 2), 
 let initialServed = false;
 let mainWindow: BrowserWindow | null = null;
 let lastFolder = app.getPath('documents');
+/** Folder of the drawing last opened: DXF exports are offered beside it, under a new name. */
+let drawingFolder: string | null = null;
+const recovery = createRecoverySlot(path.join(app.getPath('userData'), 'recovery'));
+/** How long main waits for the renderer to write or clear the recovery slot before closing. */
+const CLOSE_WAIT_MS = 3000;
 
 function kindOfPath(p: string): FileKind {
   const ext = path.extname(p).slice(1).toLowerCase();
@@ -44,6 +51,7 @@ const refused = (): BridgeResult<never> => err({ kind: 'invalid-argument', messa
 
 async function remember(file: string): Promise<void> {
   lastFolder = path.dirname(file);
+  if (kindOfPath(file) === 'drawing') drawingFolder = lastFolder;
   await recent.add(file);
   await rebuildMenu();
 }
@@ -101,20 +109,50 @@ function registerHandlers(): void {
     if (!fromOurPage(e)) return refused();
     if (initialServed || !initialPath) return ok(null);
     initialServed = true;
-    return readTextFile(initialPath, kindOfPath(initialPath));
+    const read = await readTextFile(initialPath, kindOfPath(initialPath));
+    if (read.ok && kindOfPath(initialPath) === 'drawing') drawingFolder = path.dirname(path.resolve(initialPath));
+    return read;
   });
   ipcMain.handle(CHANNELS.saveFile, async (e, reqArg: unknown): Promise<BridgeResult<SavedFile | null>> => {
     if (!fromOurPage(e)) return refused();
     const req = validateWriteRequest(reqArg);
     if (!req.ok) return req;
     const win = BrowserWindow.fromWebContents(e.sender);
-    const options = { defaultPath: path.join(lastFolder, req.value.suggestedName), filters: dialogFilters(req.value.kind) };
+    const isDxf = req.value.kind === 'dxf';
+    const folder = isDxf && drawingFolder ? drawingFolder : lastFolder;
+    const options = { defaultPath: path.join(folder, req.value.suggestedName), filters: dialogFilters(req.value.kind) };
     const pick = win ? await dialog.showSaveDialog(win, options) : await dialog.showSaveDialog(options);
     if (pick.canceled || !pick.filePath) return ok(null);
-    const saved = await writeFileAtomic(pick.filePath, req.value.data, req.value.kind);
+    // a drawing is never replaced in place without a backup copy of what was there
+    const saved: BridgeResult<SavedFile> = isDxf
+      ? await writeKeepingBackup(pick.filePath, req.value.data, req.value.kind)
+      : await writeFileAtomic(pick.filePath, req.value.data, req.value.kind);
     if (saved.ok) lastFolder = path.dirname(saved.value.path);
     if (saved.ok && req.value.kind === 'project') await remember(saved.value.path);
     return saved;
+  });
+  ipcMain.handle(CHANNELS.writeRecovery, async (e, textArg: unknown, atArg: unknown): Promise<BridgeResult<null>> => {
+    if (!fromOurPage(e)) return refused();
+    const v = validateRecovery(textArg, atArg);
+    if (!v.ok) return v;
+    return recovery.write(v.value.project, v.value.savedAt);
+  });
+  ipcMain.handle(CHANNELS.readRecovery, async (e): Promise<BridgeResult<RecoverySnapshot | null>> => {
+    if (!fromOurPage(e)) return refused();
+    return ok(await recovery.read());
+  });
+  ipcMain.handle(CHANNELS.clearRecovery, async (e): Promise<BridgeResult<null>> => {
+    if (!fromOurPage(e)) return refused();
+    try {
+      await recovery.clear();
+      return ok(null);
+    } catch (x) {
+      return err({ kind: 'io', message: `could not clear the recovery file: ${(x as Error).message}` });
+    }
+  });
+  ipcMain.on(CHANNELS.closeReady, (e) => {
+    if (!fromOurPage(e)) return;
+    closeReady?.();
   });
   ipcMain.handle(CHANNELS.recentFiles, async (e): Promise<string[]> => (fromOurPage(e) ? recent.list() : []));
   ipcMain.on(CHANNELS.setDocumentState, (e, title: unknown, edited: unknown) => {
@@ -126,7 +164,28 @@ function registerHandlers(): void {
   });
 }
 
+let closeReady: (() => void) | null = null;
+let closeAllowed = false;
+
+/** Before the window closes (also on quit), let the renderer write or clear the recovery slot. */
+function guardClose(win: BrowserWindow): void {
+  win.on('close', (ev) => {
+    if (closeAllowed) return;
+    ev.preventDefault();
+    if (closeReady) return; // already asked
+    const timer = setTimeout(() => closeReady?.(), CLOSE_WAIT_MS);
+    closeReady = () => {
+      clearTimeout(timer);
+      closeReady = null;
+      closeAllowed = true;
+      if (!win.isDestroyed()) win.close();
+    };
+    win.webContents.send(CHANNELS.beforeClose);
+  });
+}
+
 function createWindow(): void {
+  closeAllowed = false;
   mainWindow = new BrowserWindow({
     width: 1440,
     height: 900,
@@ -143,6 +202,7 @@ function createWindow(): void {
   wc.setWindowOpenHandler(() => ({ action: 'deny' }));
   wc.on('will-attach-webview', (ev) => ev.preventDefault());
   mainWindow.once('ready-to-show', () => mainWindow?.show());
+  guardClose(mainWindow);
   mainWindow.on('closed', () => { mainWindow = null; });
   void mainWindow.loadURL(`${APP_ORIGIN}/index.html`);
 }

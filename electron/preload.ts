@@ -25,6 +25,17 @@ const bridge: FurrowBridge = {
     return () => { ipcRenderer.removeListener(CHANNELS.recentChosen, handler); };
   },
   setDocumentState: (title, edited) => { ipcRenderer.send(CHANNELS.setDocumentState, title, edited); },
+  writeRecovery: (projectText, savedAtIso) => ipcRenderer.invoke(CHANNELS.writeRecovery, projectText, savedAtIso),
+  readRecovery: () => ipcRenderer.invoke(CHANNELS.readRecovery),
+  clearRecovery: () => ipcRenderer.invoke(CHANNELS.clearRecovery),
+  onBeforeClose(listener: () => Promise<void>) {
+    const handler = (): void => {
+      // main waits for this answer (or a timeout) before it closes the window
+      void listener().catch(() => undefined).finally(() => ipcRenderer.send(CHANNELS.closeReady));
+    };
+    ipcRenderer.on(CHANNELS.beforeClose, handler);
+    return () => { ipcRenderer.removeListener(CHANNELS.beforeClose, handler); };
+  },
 };
 
 contextBridge.exposeInMainWorld('furrow', bridge);

@@ -1,6 +1,7 @@
 // Reading and writing the files the bridge deals in. Plain Node (no Electron) so it is tested directly.
 
 import { promises as fs } from 'node:fs';
+import type { FileHandle } from 'node:fs/promises';
 import path from 'node:path';
 import { err, ok } from '../../core/result';
 import { FILE_KINDS, MAX_OPEN_BYTES, hasAllowedExtension, type BridgeResult, type FileKind, type OpenedFile, type SavedFile } from '../contract';
@@ -41,15 +42,63 @@ export function withExtension(filePath: string, kind: FileKind): string {
   return hasAllowedExtension(path.basename(filePath), kind) ? filePath : `${filePath}.${FILE_KINDS[kind][0]}`;
 }
 
-/** Write through a temporary file and rename, so a failed write never leaves half a file. */
-export async function writeFileAtomic(filePath: string, data: string | Uint8Array, kind: FileKind): Promise<BridgeResult<SavedFile>> {
+/** Steps of an atomic write, in order; a hook may throw at any of them (tests simulate failures). */
+export type WriteStep = 'opened' | 'written' | 'synced' | 'renamed' | 'dir-synced';
+
+export interface AtomicWriteOptions {
+  /** Writes the data into the open temporary file (default: the whole buffer at once). */
+  writer?: (handle: FileHandle, data: string | Uint8Array) => Promise<void>;
+  /** Called after each step. */
+  onStep?: (step: WriteStep) => void | Promise<void>;
+  /** Platform name, for whether a folder can be flushed (default process.platform). */
+  platform?: string;
+}
+
+/**
+ * Flush a folder's entry list so a rename survives a power cut. POSIX systems allow opening a
+ * folder and fsync'ing it; Windows does not (the rename is journalled by NTFS), so it is skipped there.
+ * Returns whether the folder was flushed.
+ */
+export async function syncDirectory(dir: string, platform: string = process.platform): Promise<boolean> {
+  if (platform === 'win32') return false;
+  let handle: FileHandle | null = null;
+  try {
+    handle = await fs.open(dir, 'r');
+    await handle.sync();
+    return true;
+  } catch {
+    return false; // some file systems refuse fsync on a folder; the data itself is already flushed
+  } finally {
+    await handle?.close().catch(() => undefined);
+  }
+}
+
+/**
+ * Write through a temporary file beside the target: write, fsync the file, rename over the target,
+ * then fsync the folder. A failure at any step removes the temporary file and leaves the old target
+ * untouched, so a failed save never leaves half a file.
+ */
+export async function writeFileAtomic(filePath: string, data: string | Uint8Array, kind: FileKind, options: AtomicWriteOptions = {}): Promise<BridgeResult<SavedFile>> {
   const target = withExtension(filePath, kind);
   const tmp = `${target}.${process.pid}.${Date.now()}.part`;
+  const step = options.onStep ?? (() => undefined);
+  let handle: FileHandle | null = null;
   try {
-    await fs.writeFile(tmp, data);
+    handle = await fs.open(tmp, 'wx');
+    await step('opened');
+    if (options.writer) await options.writer(handle, data);
+    else await handle.writeFile(data);
+    await step('written');
+    await handle.sync();
+    await step('synced');
+    await handle.close();
+    handle = null;
     await fs.rename(tmp, target);
+    await step('renamed');
+    if (await syncDirectory(path.dirname(target), options.platform)) await step('dir-synced');
     return ok({ path: target, name: path.basename(target) });
   } catch (e) {
+    await handle?.close().catch(() => undefined);
     await fs.rm(tmp, { force: true }).catch(() => undefined);
     return err({ kind: 'io', message: `could not write ${path.basename(target)}: ${(e as Error).message}` });
   }

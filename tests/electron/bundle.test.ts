@@ -44,7 +44,8 @@ describe('preload bundle', () => {
     expect(Object.keys(exposed)).toEqual(['furrow']);
     const api = exposed.furrow as Record<string, unknown>;
     expect(Object.keys(api).sort()).toEqual(
-      ['initialFile', 'onMenuCommand', 'onRecentChosen', 'openFile', 'openRecent', 'recentFiles', 'saveFile', 'setDocumentState', 'version'],
+      ['clearRecovery', 'initialFile', 'onBeforeClose', 'onMenuCommand', 'onRecentChosen', 'openFile', 'openRecent', 'readRecovery',
+        'recentFiles', 'saveFile', 'setDocumentState', 'version', 'writeRecovery'],
     );
     for (const [k, v] of Object.entries(api)) if (k !== 'version') expect(typeof v, k).toBe('function');
     expect(Object.values(api)).not.toContain(electron.ipcRenderer);
@@ -52,11 +53,32 @@ describe('preload bundle', () => {
     await (api.openFile as (k: string) => Promise<unknown>)('drawing');
     await (api.saveFile as (r: unknown) => Promise<unknown>)({ kind: 'csv', suggestedName: 'a.csv', data: 'x' });
     (api.setDocumentState as (t: string, e: boolean) => void)('site.dxf', true);
+    await (api.writeRecovery as (t: string, at: string) => Promise<unknown>)('{}', '2026-12-02T16:00:00.000Z');
+    await (api.readRecovery as () => Promise<unknown>)();
+    await (api.clearRecovery as () => Promise<unknown>)();
     expect(calls).toEqual([
       ['invoke', CHANNELS.openFile, 'drawing'],
       ['invoke', CHANNELS.saveFile, { kind: 'csv', suggestedName: 'a.csv', data: 'x' }],
       ['send', CHANNELS.setDocumentState, 'site.dxf', true],
+      ['invoke', CHANNELS.writeRecovery, '{}', '2026-12-02T16:00:00.000Z'],
+      ['invoke', CHANNELS.readRecovery],
+      ['invoke', CHANNELS.clearRecovery],
     ]);
+
+    // before the window closes: the renderer's listener runs to the end, then main is told it may close
+    calls.length = 0;
+    let flushed = false;
+    const offClose = (api.onBeforeClose as (l: () => Promise<void>) => () => void)(async () => {
+      await new Promise((r) => setTimeout(r, 20));
+      flushed = true;
+    });
+    listeners[CHANNELS.beforeClose]({});
+    expect(calls).toEqual([]);
+    await new Promise((r) => setTimeout(r, 60));
+    expect(flushed).toBe(true);
+    expect(calls).toEqual([['send', CHANNELS.closeReady]]);
+    offClose();
+    expect(listeners[CHANNELS.beforeClose]).toBeUndefined();
 
     // menu commands are filtered: unknown strings never reach the renderer
     const got: string[] = [];
@@ -139,8 +161,11 @@ describe('main bundle', () => {
     w.wcHandlers.get('will-navigate')!({ preventDefault: () => { prevented = true; } }, 'https://example.com/');
     expect(prevented).toBe(true);
 
-    expect([...handles.keys()].sort()).toEqual([CHANNELS.initialFile, CHANNELS.openFile, CHANNELS.openRecent, CHANNELS.recentFiles, CHANNELS.saveFile].sort());
-    expect([...ons.keys()]).toEqual([CHANNELS.setDocumentState]);
+    expect([...handles.keys()].sort()).toEqual([
+      CHANNELS.initialFile, CHANNELS.openFile, CHANNELS.openRecent, CHANNELS.recentFiles, CHANNELS.saveFile,
+      CHANNELS.writeRecovery, CHANNELS.readRecovery, CHANNELS.clearRecovery,
+    ].sort());
+    expect([...ons.keys()].sort()).toEqual([CHANNELS.closeReady, CHANNELS.setDocumentState].sort());
 
     const ours = { senderFrame: { url: 'app://furrow/index.html' }, sender: {} };
     const foreign = { senderFrame: { url: 'https://example.com/' }, sender: {} };
@@ -151,6 +176,19 @@ describe('main bundle', () => {
     expect(await handles.get(CHANNELS.recentFiles)!(ours)).toEqual([drawing]);
     expect(await handles.get(CHANNELS.openRecent)!(ours, '/etc/passwd')).toMatchObject({ ok: false });
     expect(await handles.get(CHANNELS.saveFile)!(ours, { kind: 'dxf', suggestedName: '../x.dxf', data: '' })).toMatchObject({ ok: false });
+
+    // the recovery slot lives under userData/recovery, and main validates what it is given
+    const writeRec = handles.get(CHANNELS.writeRecovery)!, readRec = handles.get(CHANNELS.readRecovery)!;
+    expect(await readRec(ours)).toEqual({ ok: true, value: null });
+    expect(await writeRec(ours, '', '2026-12-02T16:00:00.000Z')).toMatchObject({ ok: false, error: { kind: 'invalid-argument' } });
+    expect(await writeRec(ours, '{}', 'not a time')).toMatchObject({ ok: false, error: { kind: 'invalid-argument' } });
+    expect(await writeRec(foreign, '{}', '2026-12-02T16:00:00.000Z')).toMatchObject({ ok: false });
+    expect(await writeRec(ours, '{"p":1}', '2026-12-02T16:00:00.000Z')).toEqual({ ok: true, value: null });
+    expect(fs.existsSync(path.join(tmp, 'recovery', 'autosave.furrow'))).toBe(true);
+    expect(await readRec(foreign)).toMatchObject({ ok: false });
+    expect(await readRec(ours)).toEqual({ ok: true, value: { savedAt: '2026-12-02T16:00:00.000Z', project: '{"p":1}' } });
+    expect(await handles.get(CHANNELS.clearRecovery)!(ours)).toEqual({ ok: true, value: null });
+    expect(await readRec(ours)).toEqual({ ok: true, value: null });
 
     // the app:// scheme serves renderer/dist with the CSP header and nothing outside it
     const distIndex = path.join(REPO, 'renderer', 'dist', 'index.html');
