@@ -39,4 +39,19 @@ describe('dualAscent', () => {
       }
     }
   });
+
+  it('stopped early by the work budget, the bound stays valid (below the full bound and the exact optimum)', () => {
+    const { g, free } = gridWithHoles(7, 30, 30, 4, 9);
+    const terms = pickTerminals(7, free, 8);
+    const ex = steinerExact(g, terms)!;
+    const full = dualAscent(g, terms, terms[0]);
+    expect(full.complete).toBe(true);
+    for (const budget of [5, 100, 1000, full.work / 2]) {
+      const da = dualAscent(g, terms, terms[0], () => false, budget);
+      expect(da.complete).toBe(false);
+      expect(da.lowerBound).toBeLessThanOrEqual(full.lowerBound + 1e-9);
+      expect(da.lowerBound).toBeLessThanOrEqual(ex.cost + 1e-9);
+      for (const r of da.reducedCost) expect(r).toBeGreaterThanOrEqual(0);
+    }
+  });
 });
