@@ -34,14 +34,17 @@ export interface GridDualAscentResult {
 
 /** Grow the chosen component until its cut exceeds the next smallest by this factor. */
 const SWITCH_RATIO = 1.05;
+/** `stop()` is asked once per this many raises. */
+const STOP_EVERY = 256;
 
 /**
  * Dual ascent on the routing grid from `root` over the terminal nodes (duplicates and the root
  * are ignored). `scratch`, when given, must hold at least g.n·8 entries; it is overwritten (the
  * router lends the solver's state buffer, which is free once the tree is built). Stops after
- * about `maxWork` steps.
+ * about `maxWork` steps, or when `stop()` (asked every STOP_EVERY raises, e.g. a cancel signal)
+ * says so; either way the bound is valid.
  */
-export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[], root: number, maxWork = Infinity, scratch?: Float64Array): GridDualAscentResult {
+export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[], root: number, maxWork = Infinity, scratch?: Float64Array, stop: () => boolean = () => false): GridDualAscentResult {
   const n = g.n, nx = g.nx, moves = g.moves, cost = g.cost;
   const mask = styleMask(g.params.style);
   const off = new Int32Array(8);
@@ -196,8 +199,9 @@ export function gridDualAscent(g: RoutingGrid, terminalNodes: readonly number[],
   }
   let complete = true;
   let cur = -1;
+  let steps = 0;
   for (;;) {
-    if (work > maxWork) { complete = false; break; }
+    if (work > maxWork || (++steps % STOP_EVERY === 0 && stop())) { complete = false; break; }
     if (cur < 0) {
       while (queue.size > 0 && (status[queue.arcs[0]] !== 0 || queue.keys[0] !== cut[queue.arcs[0]])) queue.pop();
       if (queue.size === 0) break;

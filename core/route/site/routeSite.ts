@@ -16,11 +16,13 @@ import { gridDualAscent } from './dualAscentGrid';
 import { buildRoutingGrid, DX, DY, styleMask, type GridParams, type RoutingGrid } from './routingGrid';
 import { SiteSteiner, type SiteTree } from './siteSteiner';
 
-/** Dual ascent's work budget (nodes taken in, arcs pushed or popped): about 20 M per second. */
+/** Dual ascent's work budget (nodes taken in, arcs scanned, pushed or popped; about 25 M per second
+ *  of CPU): at most 60 per grid node, and 8,000 per millisecond of the route's time budget (about a
+ *  third of it), so a large site keeps its time and falls back to the Voronoi bound if that is larger. */
 const DA_WORK_PER_NODE = 60;
-const DA_MAX_WORK = 40_000_000;
-/** Above this many terminals the per-terminal bit sets would outweigh the grid: Voronoi bound only. */
-const DA_MAX_TERMINALS = 128;
+const DA_WORK_PER_BUDGET_MS = 8_000;
+/** Above this many terminals the per-terminal bit sets (n/8 bytes each) would pass 32 bytes per node: Voronoi bound only. */
+const DA_MAX_TERMINALS = 256;
 
 export interface RouteOptions {
   onProgress?: Progress;
@@ -138,7 +140,7 @@ export function routeSiteDetailed(site: Site, terminals: Terminal[], route: Rout
   // membership bit per node per terminal, so very many terminals keep the Voronoi bound alone).
   let lowerBound = bound.lowerBound;
   if (anchors.length > 1 && anchors.length <= DA_MAX_TERMINALS) {
-    const da = gridDualAscent(g, anchors.map((a) => a.node), anchors[0].node, Math.min(DA_MAX_WORK, DA_WORK_PER_NODE * g.n), solver.stateBuffer());
+    const da = gridDualAscent(g, anchors.map((a) => a.node), anchors[0].node, Math.min(DA_WORK_PER_BUDGET_MS * route.timeBudgetMs, DA_WORK_PER_NODE * g.n), solver.stateBuffer(), () => opts.signal?.aborted === true);
     if (da.lowerBound > lowerBound) lowerBound = da.lowerBound;
   }
   lap('bound.dualAscent');

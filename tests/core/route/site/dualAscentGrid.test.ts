@@ -112,6 +112,10 @@ describe('gridDualAscent', () => {
       expect(r.lowerBound).toBeLessThanOrEqual(full.lowerBound + 1e-9);
       expect(r.lowerBound).toBeLessThanOrEqual(ex.cost);
     }
+    // A stop request (the router passes its cancel signal) ends it the same way.
+    const stopped = gridDualAscent(g, terms, terms[0], Infinity, undefined, () => true);
+    expect(stopped.complete).toBe(false);
+    expect(stopped.lowerBound).toBeLessThanOrEqual(full.lowerBound + 1e-9);
   });
 
   it('equals the shortest-path distance for two terminals (rectilinear and octile closed forms)', () => {
