@@ -25,6 +25,7 @@ import { currentPlatform, type MenuCommand } from './platform/platform';
 import { figuresOf, networkViewOf } from './results/runRecord';
 import { createProjectStore } from './state/history';
 import { parseProject, serializeProject } from './state/projectFile';
+import { AUTOSAVE_PREF_KEY, autosaveIntervalMs, createAutosave, describeSavedAt, type RecoverySnapshot } from './state/recovery';
 import { createRunsStore } from './state/runs';
 import { createUiStore, type Step } from './state/ui';
 import { startRun, type RunHandle } from './worker/routeClient';
@@ -41,6 +42,11 @@ export interface AppDebug {
   /** The view transform of the last frame (for tests that click on drawing coordinates). */
   view: { scale: number; tx: number; ty: number; ox: number; oy: number } | null;
   frames: number;
+  /** True while the offer to restore autosaved work is shown. */
+  recoveryOffered: boolean;
+  /** Autosaves now (as the timer would); resolves true when the slot was written. */
+  autosaveNow?: () => Promise<boolean>;
+  autosaveIntervalMs: number;
 }
 
 declare global {
@@ -56,7 +62,7 @@ const STEPS: { step: Step; label: string }[] = [
 ];
 
 async function boot(): Promise<void> {
-  const debug: AppDebug = { ready: false, drawingName: null, layerCount: 0, segmentCount: 0, lastError: null, runs: 0, firstDrawMs: 0, view: null, frames: 0 };
+  const debug: AppDebug = { ready: false, drawingName: null, layerCount: 0, segmentCount: 0, lastError: null, runs: 0, firstDrawMs: 0, view: null, frames: 0, recoveryOffered: false, autosaveIntervalMs: 0 };
   window.furrowDebug = debug;
   const platform = currentPlatform();
   const utilities = defaultSettings().utilities;
@@ -75,6 +81,16 @@ async function boot(): Promise<void> {
   const runs = createRunsStore();
   let savedAt: unknown = store.get();
   let activeRun: RunHandle | null = null;
+  const autosave = createAutosave({
+    slot: platform.recovery,
+    unsaved: () => {
+      const st = store.get(), doc = session;
+      return doc && st !== savedAt ? { key: st, text: () => serializeProject(doc.name, doc.text, st) } : null;
+    },
+    now: () => new Date(),
+  });
+  debug.autosaveNow = () => autosave.tick();
+  platform.onBeforeClose(() => autosave.closing());
 
   // ---- status line, scale bar, hover tip ----
   const cursorEl = h('span', { id: 'cursor-xy' }, '—');
@@ -217,13 +233,53 @@ async function boot(): Promise<void> {
     return true;
   }
 
-  function openProjectText(text: string): void {
+  function openProjectText(text: string): boolean {
     const p = parseProject(text, utilities.map((u) => u.key));
-    if (!p.ok) { ui.set({ message: { kind: 'error', text: p.error.message } }); return; }
+    if (!p.ok) { ui.set({ message: { kind: 'error', text: p.error.message } }); return false; }
     const f = p.value;
-    openDocument(f.drawing.name, f.drawing.text, {
+    return openDocument(f.drawing.name, f.drawing.text, {
       roles: f.state.roles, points: f.state.points, units: f.units, route: { ...f.state.route }, utilitiesOn: f.state.utilitiesOn,
     });
+  }
+
+  /** A recovery slot at start-up: the last session ended without a clean save or close. */
+  function offerRestore(snap: RecoverySnapshot): void {
+    autosave.hold(true); // leave the older work in the slot until the user decides
+    const parsed = parseProject(snap.project, utilities.map((u) => u.key));
+    const what = parsed.ok ? `your work on ${parsed.value.drawing.name}` : 'a project';
+    const problem = h('p', { className: 'recovery-problem', id: 'recovery-problem', hidden: true });
+    const close = (): void => { box.remove(); autosave.hold(false); debug.recoveryOffered = false; };
+    const restore = (): void => {
+      const p = parseProject(snap.project, utilities.map((u) => u.key));
+      if (!p.ok) {
+        problem.textContent = `This autosave cannot be restored: ${p.error.message}`;
+        problem.hidden = false;
+        return;
+      }
+      close();
+      if (openProjectText(snap.project)) {
+        savedAt = null; // restored work is not in any saved file yet
+        refreshChrome();
+        ui.set({ message: { kind: 'info', text: `Restored the work autosaved at ${describeSavedAt(snap.savedAt)}. Save the project to keep it.` } });
+      }
+    };
+    const discard = (): void => {
+      close();
+      void autosave.cleared();
+      ui.set({ message: { kind: 'info', text: 'The autosaved work was discarded.' } });
+    };
+    const box = h('div', { className: 'recovery-offer', id: 'recovery-offer', role: 'alertdialog', 'aria-labelledby': 'recovery-title', 'aria-describedby': 'recovery-text' },
+      h('h2', { id: 'recovery-title' }, 'Unsaved work was kept'),
+      h('p', { id: 'recovery-text' },
+        `Furrow did not close normally last time. It autosaved ${what} at `, h('strong', { id: 'recovery-time' }, describeSavedAt(snap.savedAt)), '.'),
+      h('p', {}, 'Restore it to continue from there, or discard it and keep what is open now.'),
+      problem,
+      h('div', { className: 'recovery-actions' },
+        h('button', { id: 'recovery-restore', className: 'primary', onclick: restore }, 'Restore'),
+        h('button', { id: 'recovery-discard', onclick: discard }, 'Discard')));
+    document.body.append(box);
+    debug.recoveryOffered = true;
+    (box.querySelector('#recovery-restore') as HTMLButtonElement).focus();
   }
 
   function canRun(): string | null {
@@ -307,7 +363,12 @@ async function boot(): Promise<void> {
         const data = serializeProject(session.name, session.text, store.get());
         const r = await platform.saveFile({ kind: 'project', suggestedName: `${session.name.replace(/\.[^.]*$/, '').replace(/\s*\(demo\)$/, '')}.furrow`, data });
         if (!r.ok) ui.set({ message: { kind: 'error', text: `Could not save: ${r.error.message}` } });
-        else if (r.value) { savedAt = store.get(); refreshChrome(); ui.set({ message: { kind: 'info', text: `Saved ${r.value.name}.` } }); }
+        else if (r.value) {
+          savedAt = store.get();
+          void autosave.cleared(); // saved cleanly: nothing left to recover
+          refreshChrome();
+          ui.set({ message: { kind: 'info', text: `Saved ${r.value.name}.` } });
+        }
         return;
       }
       case 'import-points': {
@@ -371,6 +432,12 @@ async function boot(): Promise<void> {
   } else {
     showEmpty('Open a DXF site plan (File ▸ Open Site Drawing) or a saved project.');
   }
+  const found = await platform.recovery.read();
+  if (found.ok && found.value) offerRestore(found.value);
+  let storedMinutes: string | null = null;
+  try { storedMinutes = window.localStorage.getItem(AUTOSAVE_PREF_KEY); } catch { /* storage off: the default */ }
+  debug.autosaveIntervalMs = autosaveIntervalMs(location.search, storedMinutes);
+  autosave.start(debug.autosaveIntervalMs);
   await view.nextFrame();
   debug.ready = true;
 

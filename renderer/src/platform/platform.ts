@@ -2,6 +2,7 @@
 // (a file input and downloads). The rest of the renderer only sees this interface.
 
 import type { BridgeResult, FurrowBridge, MenuCommand, OpenedFile, SavedFile, WriteRequest } from '../../../electron/contract';
+import { localStorageRecovery, type RecoveryApi } from '../state/recovery';
 
 export type { MenuCommand, OpenedFile, SavedFile, WriteRequest };
 
@@ -14,6 +15,10 @@ export interface Platform {
   onMenuCommand(listener: (c: MenuCommand) => void): () => void;
   onRecentChosen(listener: (path: string) => void): () => void;
   setDocumentState(title: string, edited: boolean): void;
+  /** The recovery slot autosaves go to. */
+  readonly recovery: RecoveryApi;
+  /** Runs `listener` when the app is about to close (window close or quit; page hide in the browser). */
+  onBeforeClose(listener: () => Promise<void>): () => void;
 }
 
 declare global {
@@ -30,6 +35,12 @@ export function electronPlatform(bridge: FurrowBridge): Platform {
     onMenuCommand: (l) => bridge.onMenuCommand(l),
     onRecentChosen: (l) => bridge.onRecentChosen(l),
     setDocumentState: (t, e) => bridge.setDocumentState(t, e),
+    recovery: {
+      read: () => bridge.readRecovery(),
+      write: (text, at) => bridge.writeRecovery(text, at),
+      clear: () => bridge.clearRecovery(),
+    },
+    onBeforeClose: (l) => bridge.onBeforeClose(l),
   };
 }
 
@@ -86,6 +97,13 @@ export function browserPlatform(): Platform {
     onRecentChosen: () => () => undefined,
     setDocumentState(title, edited) {
       document.title = `${edited ? '• ' : ''}${title ? `${title} — ` : ''}Furrow`;
+    },
+    recovery: localStorageRecovery(window.localStorage),
+    onBeforeClose(listener) {
+      // pagehide also fires where beforeunload does not (mobile, bfcache); the slot write is synchronous
+      const handler = (): void => { void listener(); };
+      window.addEventListener('pagehide', handler);
+      return () => window.removeEventListener('pagehide', handler);
     },
   };
 }
