@@ -257,7 +257,8 @@ describe('working through the demo site in the browser', () => {
 
   it('cancels a long run and stays responsive while it runs', async () => {
     await page.click('[data-step="settings"]');
-    await page.fill('input[data-setting="cellM"]', '0.1');
+    // 0.25 m cells: about 3 s for the demo here, while staying under the router's memory check (0.1 m is refused)
+    await page.fill('input[data-setting="cellM"]', '0.25');
     await page.locator('input[data-setting="cellM"]').dispatchEvent('change');
     await page.fill('input[data-setting="timeBudgetMs"]', '120000');
     await page.locator('input[data-setting="timeBudgetMs"]').dispatchEvent('change');
@@ -270,7 +271,7 @@ describe('working through the demo site in the browser', () => {
     expect(Date.now() - t0).toBeLessThan(1000);
     await page.click('[data-step="points"]');
     await page.click('[data-step="results"]');
-    await page.waitForTimeout(1500);
+    await page.waitForTimeout(300);
     expect(await page.locator('#run-progress').count()).toBe(1);
     await page.click('#cancel-run');
     await expect.poll(() => page.locator('#run-error').textContent(), { timeout: 3000 }).toBe('Run cancelled.');
