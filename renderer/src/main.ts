@@ -90,6 +90,14 @@ async function boot(): Promise<void> {
     now: () => new Date(),
   });
   debug.autosaveNow = () => autosave.tick();
+  const autosavePref = {
+    get minutes(): number { return debug.autosaveIntervalMs / 60_000; },
+    setMinutes(m: number): void {
+      try { window.localStorage.setItem(AUTOSAVE_PREF_KEY, String(m)); } catch { /* storage off: this session only */ }
+      debug.autosaveIntervalMs = m * 60_000;
+      autosave.start(debug.autosaveIntervalMs);
+    },
+  };
   platform.onBeforeClose(() => autosave.closing());
 
   // ---- status line, scale bar, hover tip ----
@@ -154,7 +162,7 @@ async function boot(): Promise<void> {
     switch (ui.get().step) {
       case 'layers': renderLayersPanel(sheet, { store, ui, drawing: session.drawing, model: session.model }); break;
       case 'points': renderPointsPanel(sheet, { store, ui, utilities, importCsv: () => void command('import-points') }); break;
-      case 'settings': renderSettingsPanel(sheet, { store, ui, utilities }); break;
+      case 'settings': renderSettingsPanel(sheet, { store, ui, utilities, autosave: autosavePref }); break;
       case 'results': renderResultsPanel(sheet, { runs, utilities, canRun, run: () => void command('run'), cancel: () => void command('cancel-run') }); break;
       case 'takeoff': renderTakeoffPanel(sheet, { runs, exportFile: (k) => void exportFile(k) }); break;
     }

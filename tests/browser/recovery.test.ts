@@ -150,4 +150,25 @@ describe('autosave and restore after a crash', () => {
     expect(await page.locator('#doc-name').textContent()).not.toMatch(/•/);
     expect(errors).toEqual([]);
   });
+
+  it('lets the user set the autosave interval (default 3 min), refusing values out of range', async () => {
+    await page.goto(server.url); // no address override: the default applies
+    await page.waitForFunction(() => window.furrowDebug?.ready === true, null, { timeout: 60_000 });
+    expect(await page.evaluate(() => window.furrowDebug!.autosaveIntervalMs)).toBe(180_000);
+    await page.click('[data-step="settings"]');
+    const input = page.locator('input[data-pref="autosave-minutes"]');
+    expect(await input.inputValue()).toBe('3');
+    await input.fill('0');
+    await input.dispatchEvent('change');
+    await expect.poll(() => page.locator('#ui-message').textContent()).toMatch(/between 0\.5 and 120 min/);
+    expect(await page.evaluate(() => window.furrowDebug!.autosaveIntervalMs)).toBe(180_000);
+    await input.fill('1.5');
+    await input.dispatchEvent('change');
+    expect(await page.evaluate(() => window.furrowDebug!.autosaveIntervalMs)).toBe(90_000);
+    // kept for the next start
+    await page.reload();
+    await page.waitForFunction(() => window.furrowDebug?.ready === true, null, { timeout: 60_000 });
+    expect(await page.evaluate(() => window.furrowDebug!.autosaveIntervalMs)).toBe(90_000);
+    expect(errors, errors.join('\n')).toEqual([]);
+  });
 });

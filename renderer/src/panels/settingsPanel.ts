@@ -23,7 +23,11 @@ const STYLE_LABELS: Record<string, string> = {
   orthogonal: 'Right angles only', octilinear: '45° and 90° fittings', 'any-angle': 'Any angle',
 };
 
-export function renderSettingsPanel(el: HTMLElement, deps: { store: ProjectStore; ui: UiStore; utilities: readonly UtilitySetting[] }): void {
+/** The autosave interval: an app preference (not part of the project, not undoable). */
+export interface AutosavePref { minutes: number; setMinutes(m: number): void }
+export const AUTOSAVE_MINUTES_RANGE = { min: 0.5, max: 120 } as const;
+
+export function renderSettingsPanel(el: HTMLElement, deps: { store: ProjectStore; ui: UiStore; utilities: readonly UtilitySetting[]; autosave?: AutosavePref }): void {
   const { store, ui, utilities } = deps;
   const route = store.get().route;
   el.append(h('h2', {}, 'Route settings'));
@@ -79,4 +83,29 @@ export function renderSettingsPanel(el: HTMLElement, deps: { store: ProjectStore
     el.append(h('div', { className: 'util-row', title: u.source },
       h('label', {}, box, h('span', { className: 'swatch', style: `background:${u.color}` }), `${u.label} — ${u.kind === 'main' ? 'main with tees' : 'one conduit per service'}, ${u.diameterIn} in, cover ${u.coverIn.soft}/${u.coverIn.pavement} in`)));
   }
+
+  if (deps.autosave) renderAutosavePref(el, deps.autosave, ui);
+}
+
+function renderAutosavePref(el: HTMLElement, pref: AutosavePref, ui: UiStore): void {
+  const { min, max } = AUTOSAVE_MINUTES_RANGE;
+  el.append(h('h3', {}, 'Keeping unsaved work'));
+  el.append(h('p', { className: 'hint' }, 'While there are unsaved edits, a recovery copy is written this often and when the app closes.'));
+  const input = h('input', {
+    type: 'number', 'data-pref': 'autosave-minutes', value: String(pref.minutes), min, max, step: 'any', title: `Default 3 min; allowed ${min}–${max}`,
+    onchange: (ev: Event) => {
+      const t = ev.target as HTMLInputElement;
+      const v = Number(t.value);
+      // the sheet is redrawn on a message; the input losing focus then may send "change" again
+      if (v === pref.minutes) return;
+      if (t.value.trim() === '' || !Number.isFinite(v) || v < min || v > max) {
+        t.value = String(pref.minutes);
+        ui.set({ message: { kind: 'error', text: `The autosave interval must be between ${min} and ${max} min.` } });
+        return;
+      }
+      pref.setMinutes(v);
+      ui.set({ message: { kind: 'info', text: `Unsaved edits are now kept every ${v} min.` } });
+    },
+  });
+  el.append(h('div', { className: 'field' }, h('label', {}, 'Autosave every'), input, h('span', { className: 'unit' }, 'min')));
 }
