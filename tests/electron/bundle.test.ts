@@ -98,7 +98,12 @@ describe('main bundle', () => {
     fs.writeFileSync(drawing, '0\nEOF\n');
     const handles = new Map<string, (...a: unknown[]) => unknown>();
     const ons = new Map<string, (...a: unknown[]) => unknown>();
-    const windows: { options: any; url?: string; wcHandlers: Map<string, (...a: unknown[]) => void>; openHandler?: () => unknown }[] = [];
+    const windows: {
+      options: any; url?: string; wcHandlers: Map<string, (...a: unknown[]) => void>; openHandler?: () => unknown;
+      winHandlers: Map<string, (...a: unknown[]) => void>; sent: unknown[][]; closes: number;
+    }[] = [];
+    let savePick: { canceled: boolean; filePath?: string } = { canceled: true };
+    const saveDialogPaths: string[] = [];
     let protocolHandler: ((req: { url: string }) => Promise<Response>) | null = null;
     let ready!: () => void;
     const whenReady = new Promise<void>((r) => { ready = r; });
@@ -107,20 +112,22 @@ describe('main bundle', () => {
       rec: (typeof windows)[number];
       webContents: any;
       constructor(options: unknown) {
-        this.rec = { options, wcHandlers: new Map() };
+        this.rec = { options, wcHandlers: new Map(), winHandlers: new Map(), sent: [], closes: 0 };
         windows.push(this.rec);
         const rec = this.rec;
         this.webContents = {
           on: (ev: string, fn: (...a: unknown[]) => void) => rec.wcHandlers.set(ev, fn),
           setWindowOpenHandler: (fn: () => unknown) => { rec.openHandler = fn; },
-          send: () => undefined,
+          send: (...a: unknown[]) => { rec.sent.push(a); },
         };
         FakeWindow.all.push(this);
       }
       static getAllWindows = () => FakeWindow.all;
       static fromWebContents = () => null;
       once() { /* ready-to-show */ }
-      on() { /* closed */ }
+      on(ev: string, fn: (...a: unknown[]) => void) { this.rec.winHandlers.set(ev, fn); }
+      close() { this.rec.closes++; this.rec.winHandlers.get('close')?.({ preventDefault: () => { throw new Error('a permitted close must not be stopped'); } }); }
+      isDestroyed() { return false; }
       loadURL(url: string) { this.rec.url = url; return Promise.resolve(); }
       setTitle() { /* title */ }
       setDocumentEdited() { /* macOS dot */ }
@@ -136,7 +143,7 @@ describe('main bundle', () => {
       session: { defaultSession: { setPermissionRequestHandler: () => undefined, setPermissionCheckHandler: () => undefined } },
       dialog: {
         showOpenDialog: async () => ({ canceled: false, filePaths: [drawing] }),
-        showSaveDialog: async () => ({ canceled: true }),
+        showSaveDialog: async (o: { defaultPath: string }) => { saveDialogPaths.push(o.defaultPath); return savePick; },
         showErrorBox: () => undefined,
       },
       net: { fetch: (url: string) => Promise.resolve(new Response(fs.readFileSync(new URL(url)))) },
@@ -198,6 +205,28 @@ describe('main bundle', () => {
       expect(res.headers.get('content-security-policy')).toContain("script-src 'self'");
     }
     expect((await protocolHandler!({ url: 'app://furrow/..%2f..%2fpackage.json' })).status).toBe(404);
+    // a merged DXF is offered beside the opened drawing under a new name; picking the original
+    // itself keeps a backup copy of it before it is replaced
+    const save = handles.get(CHANNELS.saveFile)!;
+    expect(await save(ours, { kind: 'dxf', suggestedName: 'site-routed.dxf', data: 'ROUTED' })).toEqual({ ok: true, value: null });
+    expect(saveDialogPaths.at(-1)).toBe(path.join(tmp, 'site-routed.dxf'));
+    savePick = { canceled: false, filePath: drawing };
+    const replaced = await save(ours, { kind: 'dxf', suggestedName: 'site-routed.dxf', data: 'ROUTED' });
+    expect(replaced).toEqual({ ok: true, value: { path: drawing, name: 'site.dxf', backupPath: path.join(tmp, 'site.bak.dxf') } });
+    expect(fs.readFileSync(path.join(tmp, 'site.bak.dxf'), 'utf8')).toBe('0\nEOF\n');
+    expect(fs.readFileSync(drawing, 'utf8')).toBe('ROUTED');
+
+    // closing the window first lets the renderer write or clear the recovery slot, then closes
+    const closeHandler = w.winHandlers.get('close')!;
+    let stopped = 0;
+    closeHandler({ preventDefault: () => { stopped++; } });
+    expect(stopped).toBe(1);
+    expect(w.sent.at(-1)).toEqual([CHANNELS.beforeClose]);
+    expect(w.closes).toBe(0);
+    ons.get(CHANNELS.closeReady)!(foreign); // only our page may release it
+    expect(w.closes).toBe(0);
+    ons.get(CHANNELS.closeReady)!(ours);
+    expect(w.closes).toBe(1);
     fs.rmSync(tmp, { recursive: true, force: true });
   });
 });
