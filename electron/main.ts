@@ -166,6 +166,8 @@ function registerHandlers(): void {
 
 let closeReady: (() => void) | null = null;
 let closeAllowed = false;
+/** Set when the user quits (menu, shortcut): once the window has closed after the handshake, quit goes on. */
+let quitting = false;
 
 /** Before the window closes (also on quit), let the renderer write or clear the recovery slot. */
 function guardClose(win: BrowserWindow): void {
@@ -179,6 +181,8 @@ function guardClose(win: BrowserWindow): void {
       closeReady = null;
       closeAllowed = true;
       if (!win.isDestroyed()) win.close();
+      // the stopped close also stopped a quit in progress (macOS keeps running without windows)
+      if (quitting) app.quit();
     };
     win.webContents.send(CHANNELS.beforeClose);
   });
@@ -233,6 +237,8 @@ app.on('web-contents-created', (_e, contents) => {
   contents.on('will-navigate', (ev, url) => { if (!isAllowedNavigation(url)) ev.preventDefault(); });
   contents.setWindowOpenHandler(() => ({ action: 'deny' }));
 });
+
+app.on('before-quit', () => { quitting = true; });
 
 app.on('window-all-closed', () => {
   if (process.platform !== 'darwin') app.quit();

@@ -103,6 +103,8 @@ describe('main bundle', () => {
       winHandlers: Map<string, (...a: unknown[]) => void>; sent: unknown[][]; closes: number;
     }[] = [];
     let savePick: { canceled: boolean; filePath?: string } = { canceled: true };
+    const appHandlers = new Map<string, (...a: unknown[]) => void>();
+    let quits = 0;
     const saveDialogPaths: string[] = [];
     let protocolHandler: ((req: { url: string }) => Promise<Response>) | null = null;
     let ready!: () => void;
@@ -134,7 +136,8 @@ describe('main bundle', () => {
     }
     const electron = {
       app: {
-        getAppPath: () => REPO, getPath: () => tmp, isPackaged: false, whenReady: () => whenReady, on: () => undefined, quit: () => undefined,
+        getAppPath: () => REPO, getPath: () => tmp, isPackaged: false, whenReady: () => whenReady,
+        on: (ev: string, fn: (...a: unknown[]) => void) => { appHandlers.set(ev, fn); }, quit: () => { quits++; },
       },
       protocol: { registerSchemesAsPrivileged: () => undefined, handle: (_s: string, fn: typeof protocolHandler) => { protocolHandler = fn; } },
       ipcMain: { handle: (ch: string, fn: (...a: unknown[]) => unknown) => handles.set(ch, fn), on: (ch: string, fn: (...a: unknown[]) => unknown) => ons.set(ch, fn) },
@@ -227,6 +230,22 @@ describe('main bundle', () => {
     expect(w.closes).toBe(0);
     ons.get(CHANNELS.closeReady)!(ours);
     expect(w.closes).toBe(1);
+    expect(quits).toBe(0); // a window close is not a quit
+
+    // quitting: the close is held for the handshake, and the quit carries on after it
+    appHandlers.get('before-quit')!();
+    FakeWindow.all.length = 0;
+    appHandlers.get('activate')!(); // a fresh window with its own guard
+    expect(windows.length).toBe(2);
+    const w2 = windows[1];
+    let stopped2 = 0;
+    w2.winHandlers.get('close')!({ preventDefault: () => { stopped2++; } });
+    expect(stopped2).toBe(1);
+    expect(w2.sent.at(-1)).toEqual([CHANNELS.beforeClose]);
+    expect(quits).toBe(0);
+    ons.get(CHANNELS.closeReady)!(ours);
+    expect(w2.closes).toBe(1);
+    expect(quits).toBe(1);
     fs.rmSync(tmp, { recursive: true, force: true });
   });
 });
