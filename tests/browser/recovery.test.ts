@@ -171,4 +171,23 @@ describe('autosave and restore after a crash', () => {
     expect(await page.evaluate(() => window.furrowDebug!.autosaveIntervalMs)).toBe(90_000);
     expect(errors, errors.join('\n')).toEqual([]);
   });
+
+  it('validates the autosave on Restore: a damaged or newer one is explained, and Discard clears it', async () => {
+    await page.evaluate((k) => window.localStorage.setItem(k, JSON.stringify({
+      savedAt: '2026-12-02T09:15:00.000Z', project: JSON.stringify({ format: 'furrow-project', schemaVersion: 99 }),
+    })), SLOT_KEY);
+    await crash(); // (a clean reload would empty the slot: nothing is unsaved here)
+    await openApp();
+    await expect.poll(() => page.locator('#recovery-offer').isVisible()).toBe(true);
+    expect(await page.locator('#recovery-problem').isVisible()).toBe(false);
+    await page.click('#recovery-restore');
+    // parseProject refuses it; the message says why and the open drawing is untouched
+    await expect.poll(() => page.locator('#recovery-problem').isVisible()).toBe(true);
+    expect(await page.locator('#recovery-problem').textContent()).toMatch(/cannot be restored: .*newer/i);
+    expect(await page.locator('#doc-name').textContent()).toMatch(/^site\.dxf \(demo\)$/);
+    await page.click('#recovery-discard');
+    expect(await page.locator('#recovery-offer').count()).toBe(0);
+    expect(await slot()).toBeNull();
+    expect(errors, errors.join('\n')).toEqual([]);
+  });
 });
