@@ -205,6 +205,10 @@ function createWindow(): void {
   wc.on('will-redirect', (ev, url) => { if (!isAllowedNavigation(url)) ev.preventDefault(); });
   wc.setWindowOpenHandler(() => ({ action: 'deny' }));
   wc.on('will-attach-webview', (ev) => ev.preventDefault());
+  // the page crashed: load it again; it finds the last autosave in the recovery slot and offers it
+  wc.on('render-process-gone', (_ev, details) => {
+    if (details.reason !== 'clean-exit' && mainWindow && !mainWindow.isDestroyed()) void mainWindow.loadURL(`${APP_ORIGIN}/index.html`);
+  });
   mainWindow.once('ready-to-show', () => mainWindow?.show());
   guardClose(mainWindow);
   mainWindow.on('closed', () => { mainWindow = null; });

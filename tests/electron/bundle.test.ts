@@ -208,6 +208,13 @@ describe('main bundle', () => {
       expect(res.headers.get('content-security-policy')).toContain("script-src 'self'");
     }
     expect((await protocolHandler!({ url: 'app://furrow/..%2f..%2fpackage.json' })).status).toBe(404);
+    // a crashed page is loaded again (it then offers the last autosave)
+    w.url = undefined;
+    w.wcHandlers.get('render-process-gone')!({}, { reason: 'clean-exit' });
+    expect(w.url).toBeUndefined();
+    w.wcHandlers.get('render-process-gone')!({}, { reason: 'crashed' });
+    expect(w.url).toBe('app://furrow/index.html');
+
     // a merged DXF is offered beside the opened drawing under a new name; picking the original
     // itself keeps a backup copy of it before it is replaced
     const save = handles.get(CHANNELS.saveFile)!;
