@@ -93,7 +93,7 @@ export function routeSiteDetailed(site: Site, terminals: Terminal[], route: Rout
   const params = gridParams(site, route);
   progress('grid', 0);
   const gridLaps: Record<string, number> = {};
-  const g = buildRoutingGrid(site, params, gridLaps);
+  const g = buildRoutingGrid(site, params, gridLaps, check);
   lap('grid');
   Object.assign(timings, gridLaps);
   check();

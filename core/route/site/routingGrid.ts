@@ -121,9 +121,10 @@ function markNear(rings: readonly Ring[], g: { x0: number; y0: number; h: number
   }
 }
 
-export function buildRoutingGrid(site: Site, params: GridParams, timings?: Record<string, number>): RoutingGrid {
+export function buildRoutingGrid(site: Site, params: GridParams, timings?: Record<string, number>, check?: () => void): RoutingGrid {
   let tLap = performance.now();
-  const lap = (k: string): void => { const t = performance.now(); if (timings) timings[k] = t - tLap; tLap = t; };
+  // `check` throws when the caller cancels: polled between sub-steps and every 64 rows of the big loops.
+  const lap = (k: string): void => { const t = performance.now(); if (timings) timings[k] = t - tLap; tLap = t; check?.(); };
   const h = params.cell;
   if (!(h > 0)) throw new Error(`buildRoutingGrid: cell size must be positive, got ${h}`);
   const b = site.boundary;
@@ -159,6 +160,7 @@ export function buildRoutingGrid(site: Site, params: GridParams, timings?: Recor
   const mask = styleMask(params.style);
   const moves = new Uint8Array(n);
   for (let j = 0; j < ny; j++) {
+    if ((j & 63) === 0) check?.();
     for (let i = 0; i < nx; i++) {
       const v = j * nx + i;
       if (!free[v]) continue;
@@ -194,6 +196,7 @@ export function buildRoutingGrid(site: Site, params: GridParams, timings?: Recor
   const cost = new Float32Array(n * 8);
   const f = params.pavementFactor;
   for (let v = 0; v < n; v++) {
+    if ((v & 0xffff) === 0) check?.();
     const bits = moves[v];
     if (bits === 0) continue;
     const vx = x0 + (v % nx) * h, vy = y0 + Math.floor(v / nx) * h;
