@@ -134,6 +134,8 @@ export async function routeCommand(args: string[]): Promise<number> {
     return report(summary, a.out, a.json);
   } finally {
     process.off('SIGINT', onSigint);
+    // A Ctrl-C while the process winds down still ends it as cancelled (130), not killed by the signal.
+    process.on('SIGINT', () => process.exit(130));
   }
 }
 
