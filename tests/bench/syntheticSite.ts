@@ -3,22 +3,13 @@
 // services on building walls; deterministic for a seed.
 
 import type { CrossingLine, PointInput, Polygon, Site } from '../../core/site/site';
+import { makeRng } from '../../core/route/rng';
 
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const rect = (x0: number, y0: number, x1: number, y1: number): Float64Array => Float64Array.from([x0, y0, x1, y0, x1, y1, x0, y1]);
 
 export function syntheticSite(size: number, services: number, seed = 7): { site: Site; points: PointInput[] } {
-  const r = rng(seed);
+  const r = makeRng(seed);
   const blocks = Math.ceil(Math.sqrt(services * 1.3));
   const pitch = size / (blocks + 1);
   const road = Math.min(8, pitch * 0.15);

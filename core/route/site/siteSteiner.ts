@@ -30,6 +30,7 @@ import { Cancelled, type Progress } from '../../result';
 import type { Anchor } from './attach';
 import { bendTable, DX, DY, moveCost, styleMask, type RoutingGrid } from './routingGrid';
 import { BucketQueue } from './bucketQueue';
+import { makeRng } from '../rng';
 
 export interface SiteTree {
   /** Bit d at node v: the tree uses the grid edge from v in direction d. */
@@ -67,18 +68,6 @@ function popcount8(b: number): number {
   b = b - ((b >> 1) & 0x55);
   b = (b & 0x33) + ((b >> 2) & 0x33);
   return (b + (b >> 4)) & 0x0f;
-}
-
-/** Small deterministic generator (mulberry32) for restart order. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 export class SiteSteiner {
@@ -771,7 +760,7 @@ export class SiteSteiner {
     this.work = 0;
     this.workLimit = opts.timeBudgetMs * STATES_PER_MS;
     if (members.length === 0) return { adj: new Uint8Array(this.g.n), nodes: new Int32Array(0), cost: 0, joined: [], rounds: 0 };
-    const rand = rng(opts.seed);
+    const rand = makeRng(opts.seed);
     const order = members.slice();
     // Root order: the given first member, then a seeded shuffle of the rest.
     for (let i = order.length - 1; i > 1; i--) {
