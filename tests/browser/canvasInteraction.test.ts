@@ -4,10 +4,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { collectErrors, ensureRendererBuilt, launchBrowser, saveArtifact, serveDir, ARTIFACTS, DIST, type Browser, type StaticServer } from './harness';
+import { openApp, saveArtifact, ARTIFACTS, type OpenApp } from './harness';
 
-let server: StaticServer;
-let browser: Browser;
+let app: OpenApp;
 let page: Page;
 let errors: string[];
 
@@ -33,19 +32,12 @@ async function settled(): Promise<void> {
 }
 
 beforeAll(async () => {
-  await ensureRendererBuilt();
-  server = await serveDir(DIST);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  page.setDefaultTimeout(15_000);
-  errors = collectErrors(page);
-  await page.goto(server.url);
-  await page.waitForFunction(() => window.furrowDebug?.ready === true, null, { timeout: 60_000 });
+  app = await openApp();
+  ({ page, errors } = app);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.close();
+  await app?.close();
 });
 
 describe('canvas navigation and editing', () => {

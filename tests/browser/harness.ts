@@ -142,3 +142,18 @@ export function saveArtifact(name: string, data: Buffer): string {
   fs.writeFileSync(p, data);
   return p;
 }
+
+export interface OpenApp { server: StaticServer; browser: Browser; page: Page; errors: string[]; close(): Promise<void> }
+
+/** Builds the renderer if needed, serves it, opens it in Chromium and waits until the demo is ready. */
+export async function openApp(query = ''): Promise<OpenApp> {
+  await ensureRendererBuilt();
+  const server = await serveDir(DIST);
+  const browser = await launchBrowser();
+  const page = await browser.context.newPage();
+  page.setDefaultTimeout(15_000);
+  const errors = collectErrors(page);
+  await page.goto(server.url + query);
+  await page.waitForFunction(() => window.furrowDebug?.ready === true, null, { timeout: 60_000 });
+  return { server, browser, page, errors, close: async () => { await browser.close(); await server.close(); } };
+}

@@ -7,11 +7,10 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import DxfJs from 'dxf';
-import { collectErrors, ensureRendererBuilt, launchBrowser, saveArtifact, serveDir, ARTIFACTS, DIST, REPO, type Browser, type StaticServer } from './harness';
+import { openApp, saveArtifact, ARTIFACTS, REPO, type OpenApp } from './harness';
 import { PNG } from 'pngjs';
 
-let server: StaticServer;
-let browser: Browser;
+let app: OpenApp;
 let page: Page;
 let errors: string[];
 
@@ -71,19 +70,12 @@ function countColour(png: Buffer, rgb: [number, number, number], tol = 40): numb
 }
 
 beforeAll(async () => {
-  await ensureRendererBuilt();
-  server = await serveDir(DIST);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  page.setDefaultTimeout(15_000);
-  errors = collectErrors(page);
-  await page.goto(server.url);
-  await page.waitForFunction(() => window.furrowDebug?.ready === true, null, { timeout: 60_000 });
+  app = await openApp();
+  ({ page, errors } = app);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.close();
+  await app?.close();
 });
 
 describe('working through the demo site in the browser', () => {
@@ -229,7 +221,7 @@ describe('working through the demo site in the browser', () => {
     expect(saved.schemaVersion).toBe(1);
     expect(saved.state.route.style).toBe('orthogonal');
 
-    await page.goto(`${server.url}?empty`);
+    await page.goto(`${app.server.url}?empty`);
     await page.waitForFunction(() => window.furrowDebug?.ready === true, null, { timeout: 60_000 });
     expect(await page.locator('#doc-name').textContent()).toBe('No drawing');
     const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.click('#open-project')]);
